@@ -1,0 +1,53 @@
+import type { PassportStatic } from 'passport';
+import { signInSchema } from '../../../shared/schemas/auth.js';
+import { UnauthorisedError } from '../../common/errors.js';
+import type { SignInLimits } from '../../common/rate-limits.js';
+import { defineRoute, type RouteSpec } from '../../common/routes.js';
+import type { User } from '../../entities/User.js';
+import { SIGN_IN_FAILED } from '../../common/passport.js';
+import { SESSION_COOKIE } from '../../common/session.js';
+import { toPublicUser } from '../users/users.mapper.js';
+
+export function authRoutes(passport: PassportStatic, limits: SignInLimits): RouteSpec[] {
+  return [
+    defineRoute({
+      method: 'post', path: '/sign-in', access: 'public', body: signInSchema,
+      before: [limits.perIp, limits.perAccount],
+      handler: ({ body, req, res }) =>
+        new Promise<void>((resolve, reject) => {
+          req.body = body;
+          passport.authenticate('local', (err: unknown, user: User | false) => {
+            if (err) return reject(err);
+            if (!user) return reject(new UnauthorisedError(SIGN_IN_FAILED));
+            // passport ≥ 0.6 regenerates the session here, so a planted session id is useless.
+            req.logIn(user, (loginErr) => {
+              if (loginErr) return reject(loginErr);
+              res.json({ user: toPublicUser(user) });
+              resolve();
+            });
+          })(req, res, reject);
+        }),
+    }),
+    defineRoute({
+      method: 'post', path: '/sign-out', access: 'public',
+      handler: ({ req, res }) =>
+        new Promise<void>((resolve, reject) => {
+          req.logOut((err) => {
+            if (err) return reject(err);
+            req.session.destroy((destroyErr) => {
+              if (destroyErr) return reject(destroyErr);
+              res.clearCookie(SESSION_COOKIE);
+              res.status(204).end();
+              resolve();
+            });
+          });
+        }),
+    }),
+    defineRoute({
+      method: 'get', path: '/me', access: 'signed-in',
+      handler: ({ user, res }) => {
+        res.json({ user: toPublicUser(user!) });
+      },
+    }),
+  ];
+}

@@ -1,0 +1,40 @@
+import { idParamSchema } from '../../../shared/schemas/common.js';
+import { designCreateSchema, designListQuerySchema, designPatchSchema, nextRevisionSchema } from '../../../shared/schemas/designs.js';
+import type { AppDeps } from '../../common/deps.js';
+import { defineRoute, type RouteSpec } from '../../common/routes.js';
+import { startNextRevision } from '../revisions/revisions.service.js';
+import { toDesignDetail, toDesignRow, toRevisionDetail } from './designs.mapper.js';
+import { createDesign, getDesign, listDesigns, updateDesign } from './designs.service.js';
+
+export const DESIGN_WRITERS = ['designer', 'admin'] as const;
+export const DESIGN_READERS = ['designer', 'admin', 'tester', 'lead'] as const;
+
+export function designsRoutes({ dataSource }: AppDeps): RouteSpec[] {
+  return [
+    defineRoute({
+      method: 'get', path: '', access: DESIGN_READERS, query: designListQuerySchema,
+      handler: async ({ query, res }) => {
+        const { designs, total } = await listDesigns(dataSource, query);
+        res.json({ items: designs.map(toDesignRow), total });
+      },
+    }),
+    defineRoute({
+      method: 'post', path: '', access: DESIGN_WRITERS, body: designCreateSchema,
+      handler: async ({ body, user, res }) => { res.status(201).json({ design: toDesignDetail(await createDesign(dataSource, user!, body)) }); },
+    }),
+    defineRoute({
+      method: 'get', path: '/:id', access: DESIGN_READERS, params: idParamSchema,
+      handler: async ({ params, res }) => { res.json({ design: toDesignDetail(await getDesign(dataSource, params.id)) }); },
+    }),
+    defineRoute({
+      method: 'patch', path: '/:id', access: DESIGN_WRITERS, params: idParamSchema, body: designPatchSchema,
+      handler: async ({ params, body, user, res }) => { res.json({ design: toDesignDetail(await updateDesign(dataSource, user!, params.id, body)) }); },
+    }),
+    defineRoute({
+      method: 'post', path: '/:id/revisions', access: DESIGN_WRITERS, params: idParamSchema, body: nextRevisionSchema,
+      handler: async ({ params, body, user, res }) => {
+        res.status(201).json({ revision: toRevisionDetail(await startNextRevision(dataSource, user!, params.id, body.fromRevisionId)) });
+      },
+    }),
+  ];
+}

@@ -1,0 +1,37 @@
+import { inviteAcceptSchema, inviteCreateSchema, inviteTokenSchema } from '../../../shared/schemas/auth.js';
+import { z } from 'zod';
+import type { AppDeps } from '../../common/deps.js';
+import { defineRoute, type RouteSpec } from '../../common/routes.js';
+import { toPublicUser } from '../users/users.mapper.js';
+import { acceptInvite, createInvite, findUsableInvite } from './invites.service.js';
+import type { RequestHandler } from 'express';
+
+const tokenParams = z.strictObject({ token: inviteTokenSchema });
+
+export function invitesRoutes({ dataSource, mailer, config }: AppDeps, limit: RequestHandler): RouteSpec[] {
+  return [
+    defineRoute({
+      method: 'post', path: '', access: ['admin'], body: inviteCreateSchema,
+      handler: async ({ body, user, req, res }) => {
+        const baseUrl = config.publicUrl ?? `${req.protocol}://${req.get('host')}`;
+        const invite = await createInvite(dataSource, mailer, user!, body, baseUrl);
+        res.status(201).json({ invite: { id: invite.id, email: invite.email, role: invite.role, expiresAt: invite.expiresAt.toISOString() } });
+      },
+    }),
+    defineRoute({
+      method: 'post', path: '/accept', access: 'public', body: inviteAcceptSchema, before: [limit],
+      handler: async ({ body, req, res }) => {
+        const created = await acceptInvite(dataSource, body);
+        await new Promise<void>((resolve, reject) => req.logIn(created, (err) => (err ? reject(err) : resolve())));
+        res.status(201).json({ user: toPublicUser(created) });
+      },
+    }),
+    defineRoute({
+      method: 'get', path: '/:token', access: 'public', params: tokenParams, before: [limit],
+      handler: async ({ params, res }) => {
+        const invite = await findUsableInvite(dataSource, params.token);
+        res.json({ email: invite.email, role: invite.role, expiresAt: invite.expiresAt.toISOString() });
+      },
+    }),
+  ];
+}

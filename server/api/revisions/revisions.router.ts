@@ -1,0 +1,29 @@
+import { idParamSchema } from '../../../shared/schemas/common.js';
+import { revisionChannelsSchema } from '../../../shared/schemas/designs.js';
+import type { AppDeps } from '../../common/deps.js';
+import { defineRoute, type RouteSpec } from '../../common/routes.js';
+import { DESIGN_READERS, DESIGN_WRITERS } from '../designs/designs.router.js';
+import { toRevisionDetail } from '../designs/designs.mapper.js';
+import { getRevision, replaceChannels, revisionHistory } from './revisions.service.js';
+
+export function revisionsRoutes({ dataSource }: AppDeps): RouteSpec[] {
+  return [
+    defineRoute({
+      method: 'get', path: '/:id', access: DESIGN_READERS, params: idParamSchema,
+      handler: async ({ params, res }) => { res.json({ revision: toRevisionDetail(await getRevision(dataSource, params.id)) }); },
+    }),
+    defineRoute({
+      method: 'put', path: '/:id/channels', access: DESIGN_WRITERS, params: idParamSchema, body: revisionChannelsSchema,
+      handler: async ({ params, body, user, res }) => {
+        res.json({ revision: toRevisionDetail(await replaceChannels(dataSource, user!, params.id, body)) });
+      },
+    }),
+    defineRoute({
+      method: 'get', path: '/:id/history', access: DESIGN_READERS, params: idParamSchema,
+      handler: async ({ params, res }) => {
+        const events = await revisionHistory(dataSource, params.id);
+        res.json({ items: events.map((e) => ({ ...e, at: new Date(e.at).toISOString() })) });
+      },
+    }),
+  ];
+}

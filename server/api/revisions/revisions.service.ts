@@ -1,0 +1,73 @@
+import type { DataSource, EntityManager } from 'typeorm';
+import type { RevisionChannelsBody } from '../../../shared/schemas/designs.js';
+import { REVISION_STATE_LABELS } from '../../../shared/schemas/designs.js';
+import { recordAudit } from '../../common/audit.js';
+import { ConflictError, NotFoundError } from '../../common/errors.js';
+import { AuditEvent } from '../../entities/AuditEvent.js';
+import { Channel } from '../../entities/Channel.js';
+import { Design } from '../../entities/Design.js';
+import { Revision } from '../../entities/Revision.js';
+import type { User } from '../../entities/User.js';
+import { compareLetters, nextRevisionLetter } from '../designs/revision-letters.js';
+
+export async function getRevision(dataSource: DataSource | EntityManager, id: number): Promise<Revision> {
+  const revision = await dataSource.getRepository(Revision).findOne({
+    where: { id },
+    relations: { design: { owner: true }, channels: true, createdBy: true },
+  });
+  if (!revision) throw new NotFoundError(`no revision with id ${id}`);
+  revision.channels.sort((a, b) => a.position - b.position);
+  return revision;
+}
+
+export const revisionHistory = (dataSource: DataSource, id: number) =>
+  dataSource.getRepository(AuditEvent).find({ where: { subject: `revision:${id}` }, order: { at: 'ASC', id: 'ASC' } });
+
+/** Only a draft may change; anything else says how to go on. */
+export function assertDraft(revision: Revision): void {
+  if (revision.state !== 'draft') {
+    throw new ConflictError(
+      `revision ${revision.letter} is ${REVISION_STATE_LABELS[revision.state].toLowerCase()} and cannot be edited; start the next revision from it`,
+    );
+  }
+}
+
+/** Replaces the channels of a draft revision in one transaction. */
+export async function replaceChannels(dataSource: DataSource, actor: User, id: number, body: RevisionChannelsBody): Promise<Revision> {
+  await dataSource.transaction(async (m) => {
+    const revision = await getRevision(m, id);
+    assertDraft(revision);
+    const channels = m.getRepository(Channel);
+    await channels.delete({ revisionId: id });
+    await channels.save(body.channels.map((c, position) => channels.create({ revisionId: id, key: c.key, position, definition: c.definition })));
+    if (body.note !== undefined) revision.note = body.note;
+    revision.updatedAt = new Date();
+    await m.getRepository(Revision).save({ id, note: revision.note, updatedAt: revision.updatedAt });
+    await m.getRepository(Design).update({ id: revision.designId }, { updatedAt: new Date() });
+    await recordAudit(m, actor.id, 'revision.edit', `revision:${id}`, { channels: body.channels.map((c) => c.key) });
+  });
+  return getRevision(dataSource, id);
+}
+
+/** Starts the next lettered draft from an existing revision, copying its channels. One draft at a time. */
+export async function startNextRevision(dataSource: DataSource, actor: User, designId: number, fromRevisionId: number): Promise<Revision> {
+  const id = await dataSource.transaction(async (m) => {
+    const revisions = await m.getRepository(Revision).find({ where: { designId } });
+    if (revisions.length === 0) throw new NotFoundError(`no design with id ${designId}`);
+    const from = revisions.find((r) => r.id === fromRevisionId);
+    if (!from) throw new NotFoundError(`revision ${fromRevisionId} is not part of design ${designId}`, );
+    const draft = revisions.find((r) => r.state === 'draft');
+    if (draft) throw new ConflictError(`revision ${draft.letter} is already a draft; edit it instead of starting another`);
+    const last = revisions.map((r) => r.letter).sort(compareLetters).at(-1) ?? null;
+    const source = await getRevision(m, from.id);
+    const created = await m.getRepository(Revision).save(m.getRepository(Revision).create({
+      designId, letter: nextRevisionLetter(last), state: 'draft', basedOnId: from.id, createdById: actor.id, note: '',
+    }));
+    const channels = m.getRepository(Channel);
+    await channels.save(source.channels.map((c) => channels.create({ revisionId: created.id, key: c.key, position: c.position, definition: c.definition })));
+    await m.getRepository(Design).update({ id: designId }, { updatedAt: new Date() });
+    await recordAudit(m, actor.id, 'revision.start', `revision:${created.id}`, { from: from.letter });
+    return created.id;
+  });
+  return getRevision(dataSource, id);
+}

@@ -1,0 +1,90 @@
+import type { DataSource, FindOptionsWhere } from 'typeorm';
+import { Between } from 'typeorm';
+import type { StockPartBody } from '../../../shared/schemas/stock.js';
+import { parseEngineering } from '../../../shared/units/index.js';
+import { recordAudit } from '../../common/audit.js';
+import { BadRequestError, NotFoundError } from '../../common/errors.js';
+import { StockPart } from '../../entities/StockPart.js';
+import type { User } from '../../entities/User.js';
+import type { StockPreview } from './stock.csv.js';
+
+export interface StockListOptions {
+  page: number;
+  pageSize: number;
+  sort: 'ohms' | 'tolerancePct' | 'quantity' | 'updatedAt';
+  order: 'asc' | 'desc';
+  search?: string;
+}
+
+/** Search is by value: "4k7" or "4.7k" finds parts within ±0.5 % of 4.7 kΩ. */
+function searchWhere(search: string | undefined): FindOptionsWhere<StockPart> | undefined {
+  if (!search) return undefined;
+  let ohms: number;
+  try {
+    ohms = parseEngineering(search, 'Ω');
+  } catch (err) {
+    throw new BadRequestError(`search: ${(err as Error).message}`, { search: (err as Error).message });
+  }
+  return { ohms: Between(ohms * 0.995, ohms * 1.005) };
+}
+
+export async function listStock(dataSource: DataSource, o: StockListOptions) {
+  const [items, total] = await dataSource.getRepository(StockPart).findAndCount({
+    where: searchWhere(o.search),
+    order: { [o.sort]: o.order.toUpperCase(), id: 'ASC' },
+    skip: (o.page - 1) * o.pageSize,
+    take: o.pageSize,
+  });
+  return { items, total };
+}
+
+export const allStock = (dataSource: DataSource) => dataSource.getRepository(StockPart).find({ order: { ohms: 'ASC', id: 'ASC' } });
+
+export async function createStockPart(dataSource: DataSource, actor: User, body: StockPartBody): Promise<StockPart> {
+  return dataSource.transaction(async (m) => {
+    const part = await m.getRepository(StockPart).save(m.getRepository(StockPart).create(body));
+    await recordAudit(m, actor.id, 'stock.create', `stock:${part.id}`, { ohms: part.ohms });
+    return part;
+  });
+}
+
+export async function updateStockPart(dataSource: DataSource, actor: User, id: number, patch: Partial<StockPartBody>): Promise<StockPart> {
+  return dataSource.transaction(async (m) => {
+    const repo = m.getRepository(StockPart);
+    const part = await repo.findOneBy({ id });
+    if (!part) throw new NotFoundError(`no stock part with id ${id}`);
+    Object.assign(part, patch);
+    await repo.save(part);
+    await recordAudit(m, actor.id, 'stock.update', `stock:${id}`, patch as Record<string, unknown>);
+    return part;
+  });
+}
+
+export async function deleteStockPart(dataSource: DataSource, actor: User, id: number): Promise<void> {
+  await dataSource.transaction(async (m) => {
+    const result = await m.getRepository(StockPart).delete({ id });
+    if (!result.affected) throw new NotFoundError(`no stock part with id ${id}`);
+    await recordAudit(m, actor.id, 'stock.delete', `stock:${id}`);
+  });
+}
+
+/**
+ * Stores the previewed rows in one transaction: all of them, or only the valid ones when the person chose so.
+ * With `onlyValid` false, any bad row refuses the whole file and nothing is stored.
+ */
+export async function importStock(dataSource: DataSource, actor: User, preview: StockPreview, onlyValid: boolean): Promise<number> {
+  if (preview.invalidCount > 0 && !onlyValid) {
+    throw new BadRequestError(
+      `${preview.invalidCount} row${preview.invalidCount > 1 ? 's have' : ' has'} problems; nothing was imported. Fix the file, or import only the valid rows`,
+    );
+  }
+  const parts = preview.rows.flatMap((r) => (r.part ? [r.part] : []));
+  if (parts.length === 0) throw new BadRequestError('no valid rows to import');
+  await dataSource.transaction(async (m) => {
+    const repo = m.getRepository(StockPart);
+    // Chunked inserts keep each statement under SQLite's variable limit.
+    for (let i = 0; i < parts.length; i += 200) await repo.insert(parts.slice(i, i + 200).map((p) => repo.create(p)));
+    await recordAudit(m, actor.id, 'stock.import', 'stock', { rows: parts.length, skipped: preview.invalidCount });
+  });
+  return parts.length;
+}

@@ -1,0 +1,24 @@
+import { idParamSchema, listQuerySchema } from '../../../shared/schemas/common.js';
+import { userPatchSchema } from '../../../shared/schemas/users.js';
+import type { AppDeps } from '../../common/deps.js';
+import { defineRoute, type RouteSpec } from '../../common/routes.js';
+import { toPublicUser } from './users.mapper.js';
+import { listUsers, updateUser } from './users.service.js';
+
+export function usersRoutes({ dataSource }: AppDeps): RouteSpec[] {
+  return [
+    defineRoute({
+      method: 'get', path: '', access: ['admin'], query: listQuerySchema,
+      handler: async ({ query, res }) => {
+        const { items, total } = await listUsers(dataSource, query.page, query.pageSize);
+        res.json({ items: items.map(toPublicUser), total });
+      },
+    }),
+    defineRoute({
+      method: 'patch', path: '/:id', access: ['admin'], params: idParamSchema, body: userPatchSchema,
+      handler: async ({ params, body, user, res }) => {
+        res.json({ user: toPublicUser(await updateUser(dataSource, user!, params.id, body)) });
+      },
+    }),
+  ];
+}

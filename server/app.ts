@@ -1,0 +1,61 @@
+import fs from 'node:fs';
+import path from 'node:path';
+import express, { Router } from 'express';
+import helmet from 'helmet';
+import { authRoutes } from './api/auth/auth.router.js';
+import { invitesRoutes } from './api/invites/invites.router.js';
+import { outboxRoutes } from './api/outbox/outbox.router.js';
+import { usersRoutes } from './api/users/users.router.js';
+import { seriesRoutes } from './api/series/series.router.js';
+import { stockRoutes } from './api/stock/stock.router.js';
+import { designsRoutes } from './api/designs/designs.router.js';
+import { revisionsRoutes } from './api/revisions/revisions.router.js';
+import type { AppDeps } from './common/deps.js';
+import { apiNotFound, errorHandler } from './common/errors.js';
+import { configurePassport } from './common/passport.js';
+import { inviteLimit, signInLimits } from './common/rate-limits.js';
+import { mountRoutes, type RouteTableRow } from './common/routes.js';
+import { createSessionMiddleware } from './common/session.js';
+
+export const JSON_BODY_LIMIT = '256kb';
+
+export interface BuiltApp {
+  app: express.Express;
+  /** Every API route with the roles it admits; the access tests walk this table. */
+  routeTable: RouteTableRow[];
+}
+
+export function createApp(deps: AppDeps): BuiltApp {
+  const { dataSource, config } = deps;
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('trust proxy', config.trustProxy ? 1 : false);
+  app.use(helmet());
+  app.use(express.json({ limit: JSON_BODY_LIMIT }));
+  app.use(createSessionMiddleware(dataSource, config));
+  const passport = configurePassport(dataSource);
+  app.use(passport.initialize());
+  app.use(passport.session());
+
+  const api = Router();
+  const routeTable: RouteTableRow[] = [
+    ...mountRoutes(api, '/auth', authRoutes(passport, signInLimits(config.rateLimits))),
+    ...mountRoutes(api, '/users', usersRoutes(deps)),
+    ...mountRoutes(api, '/invites', invitesRoutes(deps, inviteLimit(config.rateLimits))),
+    ...mountRoutes(api, '/outbox', outboxRoutes(deps)),
+    ...mountRoutes(api, '/series', seriesRoutes(deps)),
+    ...mountRoutes(api, '/stock', stockRoutes(deps)),
+    ...mountRoutes(api, '/designs', designsRoutes(deps)),
+    ...mountRoutes(api, '/revisions', revisionsRoutes(deps)),
+  ].map((row) => ({ ...row, path: `/api${row.path}` }));
+  app.use('/api', api);
+  app.use('/api', apiNotFound);
+
+  if (fs.existsSync(path.join(config.distDir, 'index.html'))) {
+    app.use(express.static(config.distDir, { index: false, maxAge: '1h' }));
+    // Client-side routes: every other GET gets the app shell.
+    app.get('/{*splat}', (_req, res) => res.sendFile(path.join(config.distDir, 'index.html')));
+  }
+  app.use(errorHandler);
+  return { app, routeTable };
+}

@@ -1,0 +1,41 @@
+import type { DataSource } from 'typeorm';
+import { createApp, type BuiltApp } from './app.js';
+import type { AppConfig } from './config.js';
+import { createDataSource } from './common/data-source.js';
+import { createMailer, startMailFake, type MailFake, type Mailer } from './common/mail.js';
+import { seedDemoIfEmpty } from './seed/demo.js';
+
+export interface Running extends BuiltApp {
+  dataSource: DataSource;
+  mailer: Mailer;
+  mailFake: MailFake | null;
+  close(): Promise<void>;
+}
+
+/** Opens the database and applies every pending migration (never `synchronize`). */
+export async function openDatabase(databasePath: string): Promise<DataSource> {
+  const dataSource = createDataSource(databasePath);
+  await dataSource.initialize();
+  await dataSource.runMigrations({ transaction: 'each' });
+  return dataSource;
+}
+
+/** Everything `npm start` and the API tests need: migrated database, mail path, Express app. */
+export async function bootstrap(config: AppConfig, options: { seed: boolean }): Promise<Running> {
+  const dataSource = await openDatabase(config.databasePath);
+  if (options.seed) await seedDemoIfEmpty(dataSource);
+  const mailFake = config.smtpUrl ? null : await startMailFake(dataSource);
+  const mailer = createMailer(config.mailFrom, config.smtpUrl ? { smtpUrl: config.smtpUrl } : { fakePort: mailFake!.port });
+  const built = createApp({ dataSource, mailer, config });
+  return {
+    ...built,
+    dataSource,
+    mailer,
+    mailFake,
+    async close() {
+      await mailer.close();
+      await mailFake?.close();
+      await dataSource.destroy();
+    },
+  };
+}

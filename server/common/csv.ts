@@ -1,0 +1,42 @@
+import Papa from 'papaparse';
+import { BadRequestError } from './errors.js';
+
+export interface CsvTable {
+  /** Header names as written, trimmed and lower-cased. */
+  headers: string[];
+  /** Data rows keyed by header; `line` is the line number in the file (the header is line 1). */
+  rows: { line: number; cells: Record<string, string> }[];
+  delimiter: string;
+}
+
+/**
+ * Decodes and parses an uploaded CSV with papaparse. Refuses, with the reason, what cannot be read as a
+ * table: bytes that are not UTF-8, an empty file, a header with blank or repeated names.
+ */
+export function readCsv(bytes: Buffer): CsvTable {
+  let text: string;
+  try {
+    text = new TextDecoder('utf-8', { fatal: true }).decode(bytes);
+  } catch {
+    throw new BadRequestError('file is not UTF-8 text; save it as CSV UTF-8 and upload again', { file: 'is not UTF-8' });
+  }
+  text = text.replace(/^\uFEFF/, '');
+  if (text.trim() === '') throw new BadRequestError('file is empty', { file: 'is empty' });
+  const parsed = Papa.parse<string[]>(text, { skipEmptyLines: 'greedy', delimitersToGuess: [',', ';', '\t'] });
+  const [header, ...body] = parsed.data;
+  if (!header || header.length === 0) throw new BadRequestError('file has no header line', { file: 'has no header' });
+  const headers = header.map((h) => h.trim().toLowerCase());
+  const blank = headers.findIndex((h) => h === '');
+  if (blank >= 0) throw new BadRequestError(`header column ${blank + 1} has no name`, { file: `header column ${blank + 1} is blank` });
+  const seen = new Set<string>();
+  for (const h of headers) {
+    if (seen.has(h)) throw new BadRequestError(`header names column "${h}" twice`, { file: `duplicated column "${h}"` });
+    seen.add(h);
+  }
+  if (body.length === 0) throw new BadRequestError('file has a header but no data rows', { file: 'has no data rows' });
+  const rows = body.map((cells, i) => ({
+    line: i + 2,
+    cells: Object.fromEntries(headers.map((h, j) => [h, (cells[j] ?? '').trim()])),
+  }));
+  return { headers, rows, delimiter: parsed.meta.delimiter };
+}

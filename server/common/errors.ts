@@ -1,0 +1,54 @@
+import type { ErrorRequestHandler, RequestHandler } from 'express';
+
+/** An error whose message is safe to show; anything else becomes a generic 500. */
+export class HttpError extends Error {
+  constructor(
+    readonly status: number,
+    message: string,
+    readonly fields?: Record<string, string>,
+  ) {
+    super(message);
+  }
+}
+export class BadRequestError extends HttpError {
+  constructor(message: string, fields?: Record<string, string>) { super(400, message, fields); }
+}
+export class UnauthorisedError extends HttpError {
+  constructor(message = 'sign in first') { super(401, message); }
+}
+export class ForbiddenError extends HttpError {
+  constructor(message = 'your role may not do this') { super(403, message); }
+}
+export class NotFoundError extends HttpError {
+  constructor(message = 'not found') { super(404, message); }
+}
+export class ConflictError extends HttpError {
+  constructor(message: string, fields?: Record<string, string>) { super(409, message, fields); }
+}
+export class GoneError extends HttpError {
+  constructor(message: string) { super(410, message); }
+}
+
+export const apiNotFound: RequestHandler = (req, _res, next) => {
+  next(new NotFoundError(`no API route ${req.method} ${req.path}`));
+};
+
+/** The one place errors become responses: `{ error, fields? }`, never a stack or SQL. */
+export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
+  if (err instanceof HttpError) {
+    res.status(err.status).json(err.fields ? { error: err.message, fields: err.fields } : { error: err.message });
+    return;
+  }
+  // body-parser and multer mark their own errors with a status (413 too large, 400 bad JSON).
+  const status = typeof err?.status === 'number' && err.status >= 400 && err.status < 500 ? err.status : 500;
+  if (status === 500) {
+    console.error(`[error] ${req.method} ${req.originalUrl}`, err);
+    res.status(500).json({ error: 'internal error; the server log has the details' });
+    return;
+  }
+  const message =
+    err.type === 'entity.too.large' ? 'request body is too large' :
+    err.type === 'entity.parse.failed' ? 'request body is not valid JSON' :
+    'bad request';
+  res.status(status).json({ error: message });
+};

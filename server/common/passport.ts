@@ -1,0 +1,36 @@
+import passport from 'passport';
+import { Strategy as LocalStrategy } from 'passport-local';
+import type { DataSource } from 'typeorm';
+import { User } from '../entities/User.js';
+import { checkPassword, DUMMY_HASH } from './passwords.js';
+
+/** One message for unknown e-mail, wrong password and deactivated account, so none can be told apart. */
+export const SIGN_IN_FAILED = 'e-mail or password is not right';
+
+export function configurePassport(dataSource: DataSource): passport.PassportStatic {
+  const users = dataSource.getRepository(User);
+  const instance = new passport.Passport() as unknown as passport.PassportStatic;
+  instance.use(
+    new LocalStrategy({ usernameField: 'email', passwordField: 'password' }, async (email, password, done) => {
+      try {
+        const user = await users.findOneBy({ email: email.trim().toLowerCase() });
+        const ok = await checkPassword(password, user?.passwordHash ?? DUMMY_HASH);
+        if (!user || !ok || !user.active) return done(null, false, { message: SIGN_IN_FAILED });
+        done(null, user);
+      } catch (err) {
+        done(err);
+      }
+    }),
+  );
+  instance.serializeUser((user, done) => done(null, (user as User).id));
+  instance.deserializeUser(async (id: number, done) => {
+    try {
+      const user = await users.findOneBy({ id });
+      // A deactivated account loses its sessions at the next request.
+      done(null, user && user.active ? user : false);
+    } catch (err) {
+      done(err);
+    }
+  });
+  return instance;
+}

@@ -1,0 +1,41 @@
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+
+export const projectRoot = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
+
+export interface AppConfig {
+  port: number;
+  host: string;
+  databasePath: string;
+  smtpUrl: string | null;
+  mailFrom: string;
+  /** Base URL used in links inside e-mails. */
+  publicUrl: string | null;
+  sessionSecret: string | null;
+  trustProxy: boolean;
+  rateLimits: boolean;
+  distDir: string;
+}
+
+function flag(value: string | undefined, fallback: boolean): boolean {
+  if (value === undefined || value === '') return fallback;
+  return !['0', 'false', 'no', 'off'].includes(value.toLowerCase());
+}
+
+/** Reads configuration from the environment; every variable is listed in the README. */
+export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
+  const port = Number(env.PORT ?? 3000);
+  if (!Number.isInteger(port) || port < 0 || port > 65535) throw new Error(`PORT must be 0–65535, got ${env.PORT}`);
+  return {
+    port,
+    host: env.HOST ?? '127.0.0.1',
+    databasePath: env.DATABASE_PATH ?? path.join(projectRoot, 'data', 'tallyvolt.sqlite'),
+    smtpUrl: env.SMTP_URL || null,
+    mailFrom: env.MAIL_FROM ?? 'Tallyvolt <tallyvolt@example.test>',
+    publicUrl: env.PUBLIC_URL || null,
+    sessionSecret: env.SESSION_SECRET || null,
+    trustProxy: flag(env.TRUST_PROXY, false),
+    rateLimits: flag(env.RATE_LIMITS, true),
+    distDir: env.DIST_DIR ?? path.join(projectRoot, 'dist'),
+  };
+}

@@ -1,0 +1,47 @@
+import { z } from 'zod';
+import { roleSchema } from './roles.js';
+
+/** Passwords shorter than this are refused; length beats composition rules for typed passphrases. */
+export const PASSWORD_MIN_LENGTH = 12;
+export const PASSWORD_MAX_LENGTH = 200;
+
+const emailSchema = z
+  .string({ error: 'e-mail is required' })
+  .trim()
+  .toLowerCase()
+  .max(254, { error: 'e-mail must be at most 254 characters' })
+  .pipe(z.email({ error: 'e-mail is not a valid address' }));
+
+export const passwordSchema = z
+  .string({ error: 'password is required' })
+  .min(PASSWORD_MIN_LENGTH, { error: `password must be at least ${PASSWORD_MIN_LENGTH} characters` })
+  .max(PASSWORD_MAX_LENGTH, { error: `password must be at most ${PASSWORD_MAX_LENGTH} characters` });
+
+export const signInSchema = z.strictObject({
+  email: emailSchema,
+  password: z.string({ error: 'password is required' }).min(1, { error: 'password is required' }).max(PASSWORD_MAX_LENGTH),
+});
+export type SignInBody = z.infer<typeof signInSchema>;
+
+export const inviteCreateSchema = z.strictObject({
+  email: emailSchema,
+  role: roleSchema,
+});
+export type InviteCreateBody = z.infer<typeof inviteCreateSchema>;
+
+export const inviteTokenSchema = z
+  .string({ error: 'token is required' })
+  .regex(/^[A-Za-z0-9_-]{20,100}$/, { error: 'token is not a valid invitation token' });
+
+export const inviteAcceptSchema = z.strictObject({
+  token: inviteTokenSchema,
+  displayName: z
+    .string({ error: 'display name is required' })
+    .trim()
+    .min(2, { error: 'display name must be at least 2 characters' })
+    .max(120, { error: 'display name must be at most 120 characters' }),
+  password: passwordSchema,
+});
+export type InviteAcceptBody = z.infer<typeof inviteAcceptSchema>;
+
+export { emailSchema };

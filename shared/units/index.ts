@@ -1,0 +1,6 @@
+export { parseQuantity, parseEngineering } from './parse-engineering.js';
+export type { ParsedQuantity } from './parse-engineering.js';
+export { formatEng } from './format-engineering.js';
+export type { FormatEngOptions } from './format-engineering.js';
+export { parseRkm, formatRkm, isRkmCode } from './rkm-code.js';
+export { SI_PREFIX_EXPONENTS, normaliseUnit } from './si-prefixes.js';

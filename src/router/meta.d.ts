@@ -1,0 +1,19 @@
+import 'vue-router';
+import type { Role } from '@/services/users';
+
+export {};
+
+declare module 'vue-router' {
+  interface RouteMeta {
+    /** Shown in the browser tab, before "· Tallyvolt". */
+    title?: string;
+    /** Reachable without signing in. */
+    public?: boolean;
+    /** Drawn without the top bar (sign-in, invitation). */
+    bare?: boolean;
+    /** Roles allowed in; absent means any signed-in person. */
+    roles?: Role[];
+    /** How the page is named when someone without the role is turned away. */
+    area?: string;
+  }
+}

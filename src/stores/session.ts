@@ -1,0 +1,65 @@
+import { computed, ref } from 'vue';
+import { defineStore } from 'pinia';
+import { authApi, type SignInRequest } from '@/services/auth';
+import { isApiError } from '@/services/apiError';
+import { resetSessionExpiry } from '@/services/http';
+import type { Role, User } from '@/services/users';
+
+export const useSessionStore = defineStore('session', () => {
+  const user = ref<User | null>(null);
+  const loaded = ref(false);
+  let pending: Promise<void> | null = null;
+
+  const role = computed<Role | null>(() => user.value?.role ?? null);
+  const signedIn = computed(() => user.value !== null);
+
+  /** Asks the server who is signed in; repeated calls share the first answer. */
+  function load(): Promise<void> {
+    if (loaded.value) return Promise.resolve();
+    pending ??= authApi
+      .me()
+      .then(adopt)
+      .catch((error: unknown) => {
+        user.value = null;
+        // 401 simply means nobody is signed in; anything else is worth telling the person.
+        if (!isApiError(error) || error.status !== 401) throw error;
+      })
+      .finally(() => {
+        loaded.value = true;
+        pending = null;
+      });
+    return pending;
+  }
+
+  async function signIn(request: SignInRequest): Promise<User> {
+    const signedInUser = await authApi.signIn(request);
+    adopt(signedInUser);
+    return signedInUser;
+  }
+
+  async function signOut(): Promise<void> {
+    try {
+      await authApi.signOut();
+    } finally {
+      forget();
+    }
+  }
+
+  /** Takes a user the server has just signed in (sign-in, accepted invitation). */
+  function adopt(next: User): void {
+    user.value = next;
+    loaded.value = true;
+    resetSessionExpiry();
+  }
+
+  function forget(): void {
+    user.value = null;
+    loaded.value = true;
+  }
+
+  function can(...roles: Role[]): boolean {
+    return role.value !== null && roles.includes(role.value);
+  }
+
+  return { user, role, signedIn, loaded, load, signIn, signOut, adopt, forget, can };
+});
