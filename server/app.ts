@@ -10,6 +10,7 @@ import { seriesRoutes } from './api/series/series.router.js';
 import { stockRoutes } from './api/stock/stock.router.js';
 import { designsRoutes } from './api/designs/designs.router.js';
 import { revisionsRoutes } from './api/revisions/revisions.router.js';
+import { revisionStudiesRoutes, runsRoutes } from './api/runs/runs.router.js';
 import type { AppDeps } from './common/deps.js';
 import { apiNotFound, errorHandler } from './common/errors.js';
 import { configurePassport } from './common/passport.js';
@@ -46,7 +47,8 @@ export function createApp(deps: AppDeps): BuiltApp {
     ...mountRoutes(api, '/series', seriesRoutes(deps)),
     ...mountRoutes(api, '/stock', stockRoutes(deps)),
     ...mountRoutes(api, '/designs', designsRoutes(deps)),
-    ...mountRoutes(api, '/revisions', revisionsRoutes(deps)),
+    ...mountRoutes(api, '/revisions', [...revisionsRoutes(deps), ...revisionStudiesRoutes(deps, deps.scheduler)]),
+    ...mountRoutes(api, '/runs', runsRoutes(deps, deps.scheduler)),
   ].map((row) => ({ ...row, path: `/api${row.path}` }));
   app.use('/api', api);
   app.use('/api', apiNotFound);

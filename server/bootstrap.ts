@@ -4,11 +4,15 @@ import type { AppConfig } from './config.js';
 import { createDataSource } from './common/data-source.js';
 import { createMailer, startMailFake, type MailFake, type Mailer } from './common/mail.js';
 import { seedDemoIfEmpty } from './seed/demo.js';
+import { RunScheduler } from './api/runs/run-scheduler.js';
+import { createStudyPool, type StudyPool } from './workers/study-pool.js';
 
 export interface Running extends BuiltApp {
   dataSource: DataSource;
   mailer: Mailer;
   mailFake: MailFake | null;
+  pool: StudyPool;
+  scheduler: RunScheduler;
   close(): Promise<void>;
 }
 
@@ -26,13 +30,20 @@ export async function bootstrap(config: AppConfig, options: { seed: boolean }): 
   if (options.seed) await seedDemoIfEmpty(dataSource);
   const mailFake = config.smtpUrl ? null : await startMailFake(dataSource);
   const mailer = createMailer(config.mailFrom, config.smtpUrl ? { smtpUrl: config.smtpUrl } : { fakePort: mailFake!.port });
-  const built = createApp({ dataSource, mailer, config });
+  const pool = createStudyPool(config.studyThreads);
+  const scheduler = new RunScheduler(dataSource, pool);
+  await scheduler.recover();
+  const built = createApp({ dataSource, mailer, config, scheduler });
   return {
     ...built,
     dataSource,
     mailer,
     mailFake,
+    pool,
+    scheduler,
     async close() {
+      await scheduler.close();
+      await pool.close();
       await mailer.close();
       await mailFake?.close();
       await dataSource.destroy();

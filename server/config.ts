@@ -1,3 +1,4 @@
+import os from 'node:os';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 
@@ -15,6 +16,8 @@ export interface AppConfig {
   trustProxy: boolean;
   rateLimits: boolean;
   distDir: string;
+  /** Worker threads for studies (default: one per core). */
+  studyThreads: number;
 }
 
 function flag(value: string | undefined, fallback: boolean): boolean {
@@ -37,5 +40,6 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
     trustProxy: flag(env.TRUST_PROXY, false),
     rateLimits: flag(env.RATE_LIMITS, true),
     distDir: env.DIST_DIR ?? path.join(projectRoot, 'dist'),
+    studyThreads: Math.max(1, Number(env.STUDY_THREADS) || os.availableParallelism()),
   };
 }

@@ -1,0 +1,149 @@
+import { In, type DataSource } from 'typeorm';
+import type { QueryDeepPartialEntity } from 'typeorm/query-builder/QueryPartialEntity.js';
+import type { ChannelDefinition } from '../../../shared/schemas/chain.js';
+import { HttpError } from '../../common/errors.js';
+import { AnalysisRun } from '../../entities/AnalysisRun.js';
+import type { StudyPool } from '../../workers/study-pool.js';
+
+/** Studies one person may have waiting or running at once. */
+export const PER_USER_LIMIT = 2;
+/** Runs started at once; each spreads its channels over the pool's threads. */
+const CONCURRENT_RUNS = 2;
+const PROGRESS_WRITE_MS = 1000;
+
+export interface UncertaintyRunInputs {
+  channels: { key: string; definition: ChannelDefinition }[];
+  coverageProbability: number;
+  gridPoints: number;
+}
+
+interface ActiveRun {
+  controller: AbortController;
+  progress: number;
+}
+
+/**
+ * Queues studies and runs them in the worker pool. Progress is kept in memory for polling and written to
+ * the database about once a second; the final state and result are always written.
+ */
+export class RunScheduler {
+  private readonly queue: number[] = [];
+  private readonly active = new Map<number, ActiveRun>();
+  private closed = false;
+
+  constructor(private readonly dataSource: DataSource, private readonly pool: StudyPool) {}
+
+  /** Runs a previous process left unfinished can never finish: say so instead of leaving them "running". */
+  async recover(): Promise<void> {
+    await this.dataSource.getRepository(AnalysisRun).update(
+      { state: In(['queued', 'running']) },
+      { state: 'failed', error: 'the server stopped before this study finished; start it again', finishedAt: new Date() },
+    );
+  }
+
+  async assertUnderLimit(userId: number): Promise<void> {
+    const waiting = await this.dataSource.getRepository(AnalysisRun).countBy({ requestedById: userId, state: In(['queued', 'running']) });
+    if (waiting >= PER_USER_LIMIT) {
+      throw new HttpError(429, `you already have ${waiting} studies waiting or running; wait for one to finish or cancel it`);
+    }
+  }
+
+  enqueue(runId: number): void {
+    this.queue.push(runId);
+    this.pump();
+  }
+
+  liveProgress(runId: number): number | undefined {
+    return this.active.get(runId)?.progress;
+  }
+
+  /** Cancels a queued or running study; returns false when it was neither. */
+  cancel(runId: number): boolean {
+    const at = this.queue.indexOf(runId);
+    if (at >= 0) {
+      this.queue.splice(at, 1);
+      void this.finish(runId, { state: 'cancelled', error: 'cancelled before it started' });
+      return true;
+    }
+    const active = this.active.get(runId);
+    if (!active) return false;
+    active.controller.abort();
+    return true;
+  }
+
+  /** Resolves when nothing is queued or running (used by tests and shutdown). */
+  async idle(): Promise<void> {
+    while (this.queue.length || this.active.size) await new Promise((r) => setTimeout(r, 20));
+  }
+
+  async close(): Promise<void> {
+    this.closed = true;
+    for (const a of this.active.values()) a.controller.abort();
+    await this.idle();
+  }
+
+  private pump(): void {
+    while (!this.closed && this.active.size < CONCURRENT_RUNS && this.queue.length) {
+      const runId = this.queue.shift()!;
+      const active: ActiveRun = { controller: new AbortController(), progress: 0 };
+      this.active.set(runId, active);
+      this.execute(runId, active)
+        .catch((err) => console.error(`[runs] run ${runId} could not be recorded`, err))
+        .finally(() => {
+          this.active.delete(runId);
+          this.pump();
+        });
+    }
+  }
+
+  private async execute(runId: number, active: ActiveRun): Promise<void> {
+    const repo = this.dataSource.getRepository(AnalysisRun);
+    const run = await repo.findOneBy({ id: runId });
+    if (!run || run.state !== 'queued') return;
+    const startedAt = new Date();
+    await repo.update({ id: runId }, { state: 'running', startedAt });
+    const inputs = run.inputs as unknown as UncertaintyRunInputs;
+    const perChannel = inputs.channels.map(() => 0);
+    let lastWrite = Date.now();
+    const onProgress = (i: number) => (p: number) => {
+      perChannel[i] = p;
+      active.progress = perChannel.reduce((a, b) => a + b, 0) / perChannel.length;
+      if (Date.now() - lastWrite > PROGRESS_WRITE_MS) {
+        lastWrite = Date.now();
+        void repo.update({ id: runId, state: 'running' }, { progress: active.progress });
+      }
+    };
+    try {
+      const studies = await Promise.all(inputs.channels.map((c, i) =>
+        this.pool.run(
+          {
+            kind: 'channel-uncertainty', channel: c.definition, seed: run.seed, trials: run.trials ?? undefined,
+            ndig: run.adaptiveDigits ?? undefined, coverageProbability: inputs.coverageProbability, gridPoints: inputs.gridPoints,
+          },
+          { onProgress: onProgress(i), signal: active.controller.signal },
+        ),
+      ));
+      const result = { channels: inputs.channels.map((c, i) => ({ key: c.key, name: c.definition.name, study: studies[i] })) };
+      await this.finish(runId, { state: 'done', result, progress: 1 }, startedAt);
+    } catch (err) {
+      const cancelled = active.controller.signal.aborted;
+      await this.finish(runId, cancelled
+        ? { state: 'cancelled', error: this.closed ? 'the server stopped while this study ran' : 'cancelled while running' }
+        : { state: 'failed', error: failureReason(err) }, startedAt);
+    }
+  }
+
+  private async finish(runId: number, patch: QueryDeepPartialEntity<AnalysisRun>, startedAt?: Date): Promise<void> {
+    const finishedAt = new Date();
+    await this.dataSource.getRepository(AnalysisRun).update({ id: runId }, {
+      ...patch, finishedAt, durationMs: startedAt ? finishedAt.getTime() - startedAt.getTime() : null,
+    });
+  }
+}
+
+/** A worker's error message is the engine's own ("gate time must be > 0 s"); a dead worker gets a plain one. */
+function failureReason(err: unknown): string {
+  const message = err instanceof Error ? err.message : String(err);
+  if (/worker (exited|terminated)|exit code/i.test(message)) return `the study's worker stopped unexpectedly (${message})`;
+  return message.slice(0, 500);
+}

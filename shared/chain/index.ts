@@ -1,0 +1,14 @@
+export type * from './types.js';
+export { assertChannel } from './validate.js';
+export { dividerNominal, resistorStresses } from './divider.js';
+export type { DividerNominal, ResistorStress } from './divider.js';
+export { evaluationGrid } from './grid.js';
+export { nominalFrequencyHz, countsPerReading, frequencyResolutionHz, readingTimeS } from './capture.js';
+export { chainWarnings, MIN_COUNTS_PER_READING } from './warnings.js';
+export { nominalReadouts } from './readouts.js';
+export type { NominalReadouts, GridReadout } from './readouts.js';
+export { boardInputs, readingInputs } from './inputs.js';
+export { compileChannel } from './compile.js';
+export type { CompiledChannel } from './compile.js';
+export { converterFrequencyHz, calibrationLine, readingErrorV } from './model.js';
+export { BOARD, READING, PER_RESISTOR, BOARD_TAIL, READING_COUNT } from './layout.js';

@@ -1,0 +1,15 @@
+export type { PrechargeDesign, PrechargeFault, ReadingErrorModel, FaultVerdict } from './types.js';
+export { steadyStateFraction, timeConstantS, linkFractionAt, timeToFractionS } from './rc.js';
+export type { LinkNetwork } from './rc.js';
+export { assertPrechargeDesign } from './validate.js';
+export { prechargeKernel, PRECHARGE_OUTPUT } from './kernel.js';
+export { orderQuantile, finiteSorted, quantileTable, REPORTED_PROBABILITIES } from './quantiles.js';
+export { ratioEnvelope } from './envelope.js';
+export type { RatioEnvelope } from './envelope.js';
+export { plausibilityWindow } from './plausibility.js';
+export type { PlausibilityWindow } from './plausibility.js';
+export { evaluateFaults } from './faults.js';
+export type { FaultOutcome } from './faults.js';
+export { runPrechargeStudy, summarisePrecharge, simulatePrechargeChunk } from './study.js';
+export type { PrechargeStudy, PrechargeStudyOptions, Distribution } from './study.js';
+export { readingErrorSamples } from './reading-errors.js';

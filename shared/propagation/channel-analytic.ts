@@ -1,0 +1,68 @@
+import type { CompiledChannel } from '../chain/compile.js';
+import { calibrationLine, readingErrorV } from '../chain/model.js';
+import type { MeasurementFunction } from './functional-model.js';
+import { gumPropagation, type GumResult } from './gum.js';
+import type { UncertainInput } from './inputs.js';
+import { worstCase, type WorstCaseResult } from './worst-case.js';
+
+/**
+ * The channel's reading error at grid point g as a plain function of all its inputs (board
+ * inputs, then quantisation in counts and the two edge timings), for the GUM and worst case.
+ * @param c compiled channel
+ * @param g grid point index
+ * @returns inputs and the measurement function (error in V)
+ * @throws if g is out of range
+ * @example const { inputs, model } = channelErrorFunction(compiled, 10)
+ */
+export function channelErrorFunction(c: CompiledChannel, g: number): { inputs: UncertainInput[]; model: MeasurementFunction } {
+  if (!Number.isInteger(g) || g < 0 || g >= c.gridV.length) throw new Error('grid point out of range');
+  const inputs = [...c.board, ...c.reading];
+  const boardCount = c.board.length;
+  const line = new Float64Array(2);
+  const model: MeasurementFunction = (x) => {
+    const board = x.subarray(0, boardCount);
+    if (c.calibrated) calibrationLine(c, board, line);
+    return readingErrorV(c, board, g, x[boardCount], x[boardCount + 1], x[boardCount + 2], false, line);
+  };
+  return { inputs, model };
+}
+
+/** GUM result at one evaluation voltage; the budget lists only inputs with non-zero bounds. */
+export interface ChannelGumPoint extends GumResult {
+  voltageV: number;
+}
+
+/**
+ * GUM (JCGM 100) law of propagation for the channel's reading error at every grid voltage,
+ * with numerical central-difference sensitivity coefficients (see gumPropagation).
+ * @param c compiled channel
+ * @param coverageProbability p in (0, 1), default 0.95
+ * @throws if p is outside (0, 1)
+ * @example channelGum(compiled)[10].budget[0].label
+ */
+export function channelGum(c: CompiledChannel, coverageProbability = 0.95): ChannelGumPoint[] {
+  return Array.from(c.gridV, (voltageV, g) => {
+    const { inputs, model } = channelErrorFunction(c, g);
+    const result = gumPropagation(inputs, model, coverageProbability);
+    return { ...result, voltageV, budget: result.budget.filter((row) => row.halfWidth > 0) };
+  });
+}
+
+/** Worst-case result at one evaluation voltage. */
+export interface ChannelWorstCasePoint extends WorstCaseResult {
+  voltageV: number;
+}
+
+/**
+ * Worst-case reading error at every grid voltage: corners of all bounded inputs, quantisation
+ * ±1 count, normal inputs at ±k·σ (see worstCase for when corners are exhaustive).
+ * @param c compiled channel
+ * @throws never for a compiled channel
+ * @example channelWorstCase(compiled)[0].method
+ */
+export function channelWorstCase(c: CompiledChannel): ChannelWorstCasePoint[] {
+  return Array.from(c.gridV, (voltageV, g) => {
+    const { inputs, model } = channelErrorFunction(c, g);
+    return { ...worstCase(inputs, model), voltageV };
+  });
+}

@@ -1,0 +1,50 @@
+import { shortestInterval, symmetricInterval, type CoverageInterval } from './coverage.js';
+import { histogramOf, type Histogram } from './histogram.js';
+
+/** What a Monte Carlo run says about one output (unit of the output). */
+export interface OutputSummary {
+  trials: number;
+  mean: number;
+  standardDeviation: number;
+  symmetricInterval: CoverageInterval;
+  shortestInterval: CoverageInterval;
+  maxAbs: number;
+  histogram: Histogram;
+}
+
+/**
+ * Summarises model values per JCGM 101:2008 7.6 (mean, standard deviation with M − 1) and 7.7
+ * (symmetric and shortest coverage intervals), plus max |value| and a histogram. The input is
+ * not modified; a sorted copy is made.
+ * @param values model values (unit of the output), at least 2
+ * @param coverageProbability p in (0, 1)
+ * @param binCount histogram bins, integer ≥ 1
+ * @throws if there are fewer than 2 values, any is not finite, or p is outside (0, 1)
+ * @example summariseValues(errors, 0.95, 40).symmetricInterval
+ */
+export function summariseValues(values: Float64Array, coverageProbability: number, binCount = 40): OutputSummary {
+  const count = values.length;
+  if (count < 2) throw new Error('at least 2 trials are needed to summarise');
+  let sum = 0;
+  let maxAbs = 0;
+  for (let i = 0; i < count; i++) {
+    const v = values[i];
+    if (!Number.isFinite(v)) throw new Error(`trial ${i} gave a non-finite value`);
+    sum += v;
+    const a = Math.abs(v);
+    if (a > maxAbs) maxAbs = a;
+  }
+  const mean = sum / count;
+  let squares = 0;
+  for (let i = 0; i < count; i++) squares += (values[i] - mean) ** 2;
+  const sorted = Float64Array.from(values).sort();
+  return {
+    trials: count,
+    mean,
+    standardDeviation: Math.sqrt(squares / (count - 1)),
+    symmetricInterval: symmetricInterval(sorted, coverageProbability),
+    shortestInterval: shortestInterval(sorted, coverageProbability),
+    maxAbs,
+    histogram: histogramOf(values, binCount),
+  };
+}
