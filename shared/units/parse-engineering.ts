@@ -2,7 +2,7 @@
  * Parse a value written in engineering notation (4.7k, 4.7 kΩ, 4.7e3, 470 mV,
  * 10 kHz/V) or as an IEC 60062 RKM code (4K7, R47), optionally checking its unit.
  */
-import { SI_PREFIX_EXPONENTS, isWholeUnit, normaliseUnit } from './si-prefixes.js';
+import { SI_PREFIX_EXPONENTS, isKnownUnit, isWholeUnit, normaliseUnit } from './si-prefixes.js';
 import { isRkmCode, parseRkm } from './rkm-code.js';
 
 /** A parsed value: the number in base units and the unit written after it ('' when none). */
@@ -12,7 +12,6 @@ export interface ParsedQuantity {
 }
 
 const NUMBER_PATTERN = /^([+-]?(?:\d+\.?\d*|\.\d+))(?:[eE]([+-]?\d+))?/;
-const UNIT_PATTERN = /^[A-Za-zΩΩ°%][A-Za-zΩΩ°%/·*^0-9-]*$/u;
 const SPACES = /[\s\u00a0\u202f\u2009]+/gu;
 
 function malformed(text: string): Error {
@@ -21,19 +20,14 @@ function malformed(text: string): Error {
   );
 }
 
-/** "k", "kk", "mM": prefix letters with no unit after them (a doubled prefix). */
-function isPrefixesOnly(text: string): boolean {
-  return [...text].every((character) => character in SI_PREFIX_EXPONENTS);
-}
-
 function splitSuffix(suffix: string, text: string): { exponent: number; unit: string } {
   if (suffix === '' || isWholeUnit(suffix)) return { exponent: 0, unit: suffix };
   const prefixExponent = SI_PREFIX_EXPONENTS[suffix[0]];
   const rest = suffix.slice(1);
-  if (prefixExponent !== undefined && (rest === '' || (UNIT_PATTERN.test(rest) && !isPrefixesOnly(rest)))) {
+  if (prefixExponent !== undefined && (rest === '' || isKnownUnit(rest))) {
     return { exponent: prefixExponent, unit: normaliseUnit(rest) };
   }
-  if (UNIT_PATTERN.test(suffix) && prefixExponent === undefined) return { exponent: 0, unit: normaliseUnit(suffix) };
+  if (isKnownUnit(suffix)) return { exponent: 0, unit: normaliseUnit(suffix) };
   throw malformed(text);
 }
 
@@ -48,7 +42,7 @@ export function parseQuantity(text: string): ParsedQuantity {
   if (typeof text !== 'string') throw new Error('value text must be a string');
   const compact = text.replace(SPACES, ' ').trim();
   if (compact === '') throw new Error('value is empty: expected a number such as 4.7k or an RKM code such as 4K7');
-  const rkm = /^(\S+?)(?:\s*(Ω|Ω|ohms?))?$/u.exec(compact);
+  const rkm = /^(\S+?)(?:\s*(\u03a9|\u2126|ohms?))?$/u.exec(compact);
   if (rkm !== null && isRkmCode(rkm[1])) return { value: parseRkm(rkm[1]), unit: rkm[2] ? 'Ω' : '' };
   const number = NUMBER_PATTERN.exec(compact);
   if (number === null) throw malformed(text);

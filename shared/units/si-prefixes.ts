@@ -58,6 +58,21 @@ export function normaliseUnit(unit: string): string {
   return UNIT_ALIASES[unit] ?? unit;
 }
 
+/** Unit symbols a value may carry; compounds join them with '/' (Hz/V, ppm/K). */
+const BASE_UNITS: ReadonlySet<string> = new Set([
+  '\u03a9', 'V', 'A', 'W', 'Hz', 'F', 'H', 's', 'S', 'C', 'J', 'K', '°C', '%', 'ppm', 'dB', 'bit', 'LSB', 'counts',
+]);
+
+/**
+ * Whether text is a unit we know: a base symbol or base symbols joined by '/' (after aliases).
+ * @param unit unit text without prefix, e.g. 'Hz/V', 'ohm'
+ * @example isKnownUnit('Hz/V') // true
+ */
+export function isKnownUnit(unit: string): boolean {
+  const parts = normaliseUnit(unit).split('/');
+  return parts.every((part) => BASE_UNITS.has(normaliseUnit(part)));
+}
+
 /**
  * Whether a suffix is a whole unit that must not be split into prefix + unit.
  * @param suffix text after the number, e.g. 'ppm'

@@ -48,22 +48,23 @@ describe('stock', () => {
   it('lists every bad row with its row number and column, and stores nothing', async () => {
     const designer = await t.signIn('designer@example.test', 'tallyvolt-designer');
     const before = await count();
-    const bad = ['value,tolerance_pct,quantity', '1M,0.5,10', '4K7K,1,5', '10k,abc,5', '10k,1,-3'].join('\n');
+    const bad = ['value,tolerance_pct,quantity', '1M,0.5,10', '4K7K,1,5', '10k,abc,5', '10k,1,-3', '22k,-1,4'].join('\n');
     const preview = await designer.post('/api/stock/import?mode=preview').attach('file', Buffer.from(bad), 'bad.csv');
     expect(preview.status).toBe(200);
-    expect(preview.body.invalidCount).toBe(3);
+    expect(preview.body.invalidCount).toBe(4);
     expect(preview.body.problems).toEqual([
       { row: 3, column: 'value', problem: expect.stringContaining('4K7K') },
       { row: 4, column: 'tolerance_pct', problem: '"abc" is not a number' },
       { row: 5, column: 'quantity', problem: 'quantity must be ≥ 0' },
+      { row: 6, column: 'tolerance_pct', problem: 'tolerancePct must be in (0, 50] %' },
     ]);
     const refused = await designer.post('/api/stock/import?mode=all').attach('file', Buffer.from(bad), 'bad.csv');
     expect(refused.status).toBe(400);
-    expect(refused.body.error).toMatch(/3 rows have problems; nothing was imported/);
+    expect(refused.body.error).toMatch(/4 rows have problems; nothing was imported/);
     expect(await count()).toBe(before);
     const partial = await designer.post('/api/stock/import?mode=valid-only').attach('file', Buffer.from(bad), 'bad.csv');
     expect(partial.status).toBe(201);
-    expect(partial.body).toMatchObject({ imported: 1, skipped: 3 });
+    expect(partial.body).toMatchObject({ imported: 1, skipped: 4 });
     expect(await count()).toBe(before + 1);
   });
 

@@ -1,6 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createTestApp, type TestApp } from '../helpers/test-app.js';
 import { AnalysisRun } from '../../server/entities/AnalysisRun.js';
+import { channelStudy } from '../../shared/propagation/index.js';
 
 async function waitForRun(agent: Awaited<ReturnType<TestApp['signIn']>>, id: number, timeoutMs = 60_000) {
   const end = Date.now() + timeoutMs;
@@ -40,6 +41,11 @@ describe('uncertainty studies in the worker pool', () => {
     expect(point.monteCarlo.trials).toBe(5000);
     expect(point.gum.budget.length).toBeGreaterThan(3);
     expect(['exhaustive', 'sensitivity-signs']).toContain(point.worstCase.method);
+
+    // The stored result is what the engine gives when called directly with the same seed.
+    const definition = run.inputs.channels[1].definition;
+    const direct = channelStudy(definition, { seed: 1234, trials: 5000, gridPoints: 5, coverageProbability: 0.95 });
+    expect(channels[1].study).toEqual(JSON.parse(JSON.stringify(direct)));
 
     const again = await designer.post(`/api/revisions/${revisionId}/studies`).send({ trials: 5000, seed: 1234, gridPoints: 5 });
     const rerun = await waitForRun(designer, again.body.run.id);

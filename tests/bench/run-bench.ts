@@ -8,6 +8,8 @@ import { compileChannel } from '../../shared/chain/index.js';
 import { blockCountFor, channelKernel, planChunks, simulateBlocks, summariseChunks, type TrialChunk } from '../../shared/propagation/index.js';
 import { readingErrorSamples, summarisePrecharge, type PrechargeDesign } from '../../shared/precharge/index.js';
 import { demoChannel } from '../fixtures/demo-channel.js';
+import { benchEventLoopDuringStudy } from './event-loop-bench.js';
+import os from 'node:os';
 
 const seconds = (start: number): number => (performance.now() - start) / 1000;
 const fmt = (v: number): string => v.toExponential(2);
@@ -68,6 +70,8 @@ async function benchFinder(): Promise<void> {
     const finder = (await import('../../shared/finder/index.js')) as { findDividers?: (request: object) => unknown[] };
     if (typeof finder.findDividers !== 'function') throw new Error('findDividers is not exported');
     for (const request of [
+      { maxInputVolts: 462, fullScaleVolts: 1.85, series: 'E192', minTopCount: 1, maxTopCount: 4 },
+      { maxInputVolts: 462, fullScaleVolts: 1.85, series: 'E192', minTopCount: 1, maxTopCount: 4, mixedTopStrings: true },
       { maxInputVolts: 462, fullScaleVolts: 1.85, series: 'E96', minTopCount: 4, maxTopCount: 4 },
       { maxInputVolts: 462, fullScaleVolts: 1.85, series: 'E24', minTopCount: 1, maxTopCount: 8, mixedTopStrings: true },
     ]) {
@@ -81,6 +85,28 @@ async function benchFinder(): Promise<void> {
   }
 }
 
+async function benchChannelPool(): Promise<void> {
+  const threads = os.availableParallelism();
+  const pool = new Piscina({ filename: new URL('./bench-worker.mjs', import.meta.url).href, minThreads: threads, maxThreads: threads });
+  const channel = demoChannel();
+  const boards = 1_000_000;
+  const runOnce = (seed: number) => Promise.all(planChunks(blockCountFor(boards), threads * 4).map((range) =>
+    pool.run({ channel, gridPoints: 11, seed, totalTrials: boards, ...range }, { name: 'channelChunk' })));
+  await runOnce(1);
+  const start = performance.now();
+  await runOnce(2);
+  const s = seconds(start);
+  console.log(`channel, worker pool on ${threads} cores, 11 voltages/board: ${fmt(boards / s)} boards/s, ${fmt((boards * 11) / s)} channel-trials (readings)/s`);
+  await pool.destroy();
+}
+
+let peakRss = 0;
+const sampler = setInterval(() => { peakRss = Math.max(peakRss, process.memoryUsage().rss); }, 50);
 benchChannelOneCore();
+await benchChannelPool();
 await benchPrecharge();
 await benchFinder();
+await benchEventLoopDuringStudy();
+clearInterval(sampler);
+const maxRssMiB = process.resourceUsage().maxRSS / 1024;
+console.log(`peak memory of the bench process (main thread and its workers): ${maxRssMiB.toFixed(0)} MiB max RSS (sampled ${(peakRss / 2 ** 20).toFixed(0)} MiB)`);

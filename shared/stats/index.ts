@@ -1,0 +1,5 @@
+export { normalQuantile, studentTQuantile } from './quantiles.js';
+export { studentTCdf, studentTDensity, studentTUpperTail } from './student-t-distribution.js';
+export { mean, sampleVariance, sampleStandardDeviation } from './descriptive.js';
+export { sortedQuantile, symmetricCoverageInterval, shortestCoverageInterval } from './sorted-quantile.js';
+export type { CoverageInterval } from './sorted-quantile.js';
