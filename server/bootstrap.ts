@@ -3,7 +3,7 @@ import { createApp, type BuiltApp } from './app.js';
 import type { AppConfig } from './config.js';
 import { createDataSource } from './common/data-source.js';
 import { createMailer, startMailFake, type MailFake, type Mailer } from './common/mail.js';
-import { seedDemoIfEmpty } from './seed/demo.js';
+import { seedDemoIfEmpty, type DemoSeed } from './seed/demo.js';
 import { RunScheduler } from './api/runs/run-scheduler.js';
 import { createStudyPool, type StudyPool } from './workers/study-pool.js';
 
@@ -25,9 +25,9 @@ export async function openDatabase(databasePath: string): Promise<DataSource> {
 }
 
 /** Everything `npm start` and the API tests need: migrated database, mail path, Express app. */
-export async function bootstrap(config: AppConfig, options: { seed: boolean }): Promise<Running> {
+export async function bootstrap(config: AppConfig, options: { seed: DemoSeed | false }): Promise<Running> {
   const dataSource = await openDatabase(config.databasePath);
-  if (options.seed) await seedDemoIfEmpty(dataSource);
+  if (options.seed) await seedDemoIfEmpty(dataSource, options.seed);
   const mailFake = config.smtpUrl ? null : await startMailFake(dataSource);
   const mailer = createMailer(config.mailFrom, config.smtpUrl ? { smtpUrl: config.smtpUrl } : { fakePort: mailFake!.port });
   const pool = createStudyPool(config.studyThreads);

@@ -3,7 +3,7 @@ import { loadConfig } from './config.js';
 import { bootstrap } from './bootstrap.js';
 
 const config = loadConfig();
-const running = await bootstrap(config, { seed: true });
+const running = await bootstrap(config, { seed: 'full' });
 const server = running.app.listen(config.port, config.host, () => {
   const address = server.address();
   const port = typeof address === 'object' && address ? address.port : config.port;

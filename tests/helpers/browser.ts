@@ -25,7 +25,7 @@ export interface BrowserRig {
 
 /** The built client served by a real app on a free loopback port, and a fresh chromium profile. */
 export async function openBrowserRig(): Promise<BrowserRig> {
-  const app = await createTestApp({ distDir: await ensureBuiltClient(), publicUrl: null });
+  const app = await createTestApp({ distDir: await ensureBuiltClient(), publicUrl: null }, 'full');
   const server: Server = await new Promise((resolve) => {
     const s = app.app.listen(0, '127.0.0.1', () => resolve(s));
   });

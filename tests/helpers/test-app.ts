@@ -6,6 +6,7 @@ import request from 'supertest';
 import { bootstrap, type Running } from '../../server/bootstrap.js';
 import { loadConfig, type AppConfig } from '../../server/config.js';
 import { OutboxMessage } from '../../server/entities/OutboxMessage.js';
+import type { DemoSeed } from '../../server/seed/demo.js';
 
 export interface TestApp extends Running {
   dir: string;
@@ -16,8 +17,8 @@ export interface TestApp extends Running {
   outbox(): Promise<OutboxMessage[]>;
 }
 
-/** A real app on a fresh migrated SQLite file in a temp folder, with the SMTP fake and the demo team. */
-export async function createTestApp(overrides: Partial<AppConfig> = {}): Promise<TestApp> {
+/** A real app on a fresh migrated SQLite file in a temp folder, with the SMTP fake and the demo team (or the full demo). */
+export async function createTestApp(overrides: Partial<AppConfig> = {}, seed: DemoSeed = 'team'): Promise<TestApp> {
   const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'tallyvolt-test-'));
   const config: AppConfig = {
     ...loadConfig({}),
@@ -27,7 +28,7 @@ export async function createTestApp(overrides: Partial<AppConfig> = {}): Promise
     publicUrl: 'http://tallyvolt.test',
     ...overrides,
   };
-  const running = await bootstrap(config, { seed: true });
+  const running = await bootstrap(config, { seed });
   return {
     ...running,
     dir,
