@@ -11,6 +11,8 @@ import { stockRoutes } from './api/stock/stock.router.js';
 import { designsRoutes } from './api/designs/designs.router.js';
 import { revisionsRoutes } from './api/revisions/revisions.router.js';
 import { revisionStudiesRoutes, runsRoutes } from './api/runs/runs.router.js';
+import { boardsRoutes } from './api/boards/boards.router.js';
+import { calibrationRoutes } from './api/calibration/calibration.router.js';
 import type { AppDeps } from './common/deps.js';
 import { apiNotFound, errorHandler } from './common/errors.js';
 import { configurePassport } from './common/passport.js';
@@ -49,6 +51,8 @@ export function createApp(deps: AppDeps): BuiltApp {
     ...mountRoutes(api, '/designs', designsRoutes(deps)),
     ...mountRoutes(api, '/revisions', [...revisionsRoutes(deps), ...revisionStudiesRoutes(deps, deps.scheduler)]),
     ...mountRoutes(api, '/runs', runsRoutes(deps, deps.scheduler)),
+    ...mountRoutes(api, '/boards', boardsRoutes(deps)),
+    ...mountRoutes(api, '/calibrations', calibrationRoutes(deps)),
   ].map((row) => ({ ...row, path: `/api${row.path}` }));
   app.use('/api', api);
   app.use('/api', apiNotFound);

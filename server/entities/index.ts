@@ -1,5 +1,8 @@
 import { AnalysisRun } from './AnalysisRun.js';
 import { AuditEvent } from './AuditEvent.js';
+import { Board } from './Board.js';
+import { CalibrationPoint } from './CalibrationPoint.js';
+import { CalibrationSession } from './CalibrationSession.js';
 import { Channel } from './Channel.js';
 import { Design } from './Design.js';
 import { InviteToken } from './InviteToken.js';
@@ -10,5 +13,5 @@ import { SessionRecord } from './SessionRecord.js';
 import { StockPart } from './StockPart.js';
 import { User } from './User.js';
 
-export { AnalysisRun, AuditEvent, Channel, Design, InviteToken, OutboxMessage, ResistorSeries, Revision, SessionRecord, StockPart, User };
-export const entities = [User, InviteToken, AuditEvent, OutboxMessage, SessionRecord, Design, Revision, Channel, ResistorSeries, StockPart, AnalysisRun];
+export { AnalysisRun, AuditEvent, Board, CalibrationPoint, CalibrationSession, Channel, Design, InviteToken, OutboxMessage, ResistorSeries, Revision, SessionRecord, StockPart, User };
+export const entities = [User, InviteToken, AuditEvent, OutboxMessage, SessionRecord, Design, Revision, Channel, ResistorSeries, StockPart, AnalysisRun, Board, CalibrationSession, CalibrationPoint];

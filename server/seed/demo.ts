@@ -4,6 +4,7 @@ import { hashPassword } from '../common/passwords.js';
 import { User } from '../entities/User.js';
 import { DEMO_USERS } from './demo-team.js';
 import { seedDemoDesign } from './demo-design.js';
+import { seedDemoCalibration } from './demo-calibration.js';
 
 /** Seeds the demo team into an empty database; a database with any user is left alone. */
 /** `team` seeds only the people (most API tests); `full` adds the demo design and stock. */
@@ -22,6 +23,10 @@ export async function seedDemoIfEmpty(dataSource: DataSource, what: DemoSeed = '
     }
     return saved;
   });
-  if (what === 'full') await seedDemoDesign(dataSource, users.find((u) => u.role === 'designer')!, users.find((u) => u.role === 'lead')!);
+  if (what === 'full') {
+    const byRole = (role: string) => users.find((u) => u.role === role)!;
+    await seedDemoDesign(dataSource, byRole('designer'), byRole('lead'));
+    await seedDemoCalibration(dataSource, byRole('tester'));
+  }
   return true;
 }

@@ -1,0 +1,50 @@
+import type { Board } from '../../entities/Board.js';
+import type { CalibrationSession } from '../../entities/CalibrationSession.js';
+
+const iso = (d: Date | string | null) => (d ? new Date(d).toISOString() : null);
+
+export function toSessionSummary(s: CalibrationSession) {
+  return {
+    id: s.id,
+    boardId: s.boardId,
+    channelKey: s.channelKey,
+    state: s.state,
+    performedOn: s.performedOn,
+    ambientC: s.ambientC,
+    tester: s.tester ? { id: s.tester.id, displayName: s.tester.displayName } : undefined,
+    completedAt: iso(s.completedAt),
+    createdAt: iso(s.createdAt),
+    updatedAt: iso(s.updatedAt),
+  };
+}
+
+export function toSessionDetail(s: CalibrationSession, analysis: unknown) {
+  return {
+    ...toSessionSummary(s),
+    reference: s.reference,
+    fit: s.fit,
+    note: s.note,
+    board: { id: s.board.id, serialNumber: s.board.serialNumber, revisionId: s.board.revisionId, revisionLetter: s.board.revision.letter,
+      designId: s.board.revision.design.id, designName: s.board.revision.design.name },
+    points: s.points.map((p) => ({ id: p.id, position: p.position, appliedV: p.appliedV, frequencyHz: p.frequencyHz, counts: p.counts,
+      uncertaintyHz: p.uncertaintyHz, excluded: p.excluded, excludedReason: p.excludedReason })),
+    analysis,
+  };
+}
+
+export function toBoardView(b: Board, sessions: CalibrationSession[]) {
+  const latest: Record<string, ReturnType<typeof toSessionSummary>> = {};
+  for (const s of sessions) if (s.boardId === b.id && !latest[s.channelKey]) latest[s.channelKey] = toSessionSummary(s);
+  return {
+    id: b.id,
+    serialNumber: b.serialNumber,
+    revisionId: b.revisionId,
+    revisionLetter: b.revision?.letter,
+    designId: b.revision?.design?.id,
+    designName: b.revision?.design?.name,
+    buildDate: b.buildDate,
+    note: b.note,
+    createdAt: iso(b.createdAt),
+    latestByChannel: latest,
+  };
+}

@@ -1,0 +1,136 @@
+import { z } from 'zod';
+import { csvMappingSchema, pointExclusionSchema, pointsReplaceSchema, sessionPatchSchema } from '../../../shared/schemas/calibration.js';
+import { idParamSchema } from '../../../shared/schemas/common.js';
+import { readCsv } from '../../common/csv.js';
+import type { AppDeps } from '../../common/deps.js';
+import { BadRequestError, ConflictError } from '../../common/errors.js';
+import { defineRoute, type RouteSpec } from '../../common/routes.js';
+import { csvUpload } from '../../common/upload.js';
+import { parseOrThrow } from '../../common/validation.js';
+import { CALIBRATION_READERS, CALIBRATION_WRITERS } from '../boards/boards.router.js';
+import { calibrationOverview } from './calibration-overview.js';
+import { toSessionDetail } from './calibration.mapper.js';
+import { cHeader, jsonExport, type ExportContext } from './firmware-export.js';
+import { previewPointsCsv } from './points-csv.js';
+import { analyseSession, completeSession, getSession, sessionChannel, setExclusion, updateSession, writePoints } from './sessions.service.js';
+
+const importQuery = z.strictObject({
+  mode: z.enum(['preview', 'all', 'valid-only'], { error: 'mode must be preview, all or valid-only' }).default('preview'),
+});
+const pointParams = z.strictObject({
+  id: idParamSchema.shape.id,
+  pointId: idParamSchema.shape.id,
+});
+const overviewQuery = z.strictObject({
+  revisionId: z.coerce.number({ error: 'revisionId must be a number' }).int().positive(),
+  channelKey: z.string().min(1, { error: 'channelKey is required' }).max(40),
+});
+
+/** Reads the `mapping` form field (JSON) of a points upload; absent means "tell me the columns first". */
+function mappingOf(field: unknown) {
+  if (field === undefined || field === '') return null;
+  let value: unknown;
+  try {
+    value = JSON.parse(String(field));
+  } catch {
+    throw new BadRequestError('mapping is not valid JSON', { mapping: 'is not valid JSON' });
+  }
+  return parseOrThrow(csvMappingSchema, value, 'mapping');
+}
+
+export function calibrationRoutes({ dataSource, mailer, config }: AppDeps): RouteSpec[] {
+  const detail = async (id: number) => {
+    const session = await getSession(dataSource, id);
+    return toSessionDetail(session, await analyseSession(dataSource, session));
+  };
+  const exportContext = async (id: number): Promise<{ ctx: ExportContext; analysis: Awaited<ReturnType<typeof analyseSession>> }> => {
+    const session = await getSession(dataSource, id);
+    const analysis = await analyseSession(dataSource, session);
+    if (!analysis.fit) throw new ConflictError(`nothing to export yet: ${analysis.reason}`);
+    const channel = await sessionChannel(dataSource, session);
+    return {
+      analysis,
+      ctx: {
+        serialNumber: session.board.serialNumber, designName: session.board.revision.design.name, revisionLetter: session.board.revision.letter,
+        channelKey: session.channelKey, channelName: channel.name, sessionId: session.id, performedOn: session.performedOn,
+        ambientC: session.ambientC, state: session.state, testerName: session.tester.displayName,
+      },
+    };
+  };
+  return [
+    defineRoute({
+      method: 'get', path: '/overview', access: CALIBRATION_READERS, query: overviewQuery,
+      handler: async ({ query, res }) => { res.json(await calibrationOverview(dataSource, query.revisionId, query.channelKey)); },
+    }),
+    defineRoute({
+      method: 'get', path: '/:id', access: CALIBRATION_READERS, params: idParamSchema,
+      handler: async ({ params, res }) => { res.json({ session: await detail(params.id) }); },
+    }),
+    defineRoute({
+      method: 'patch', path: '/:id', access: CALIBRATION_WRITERS, params: idParamSchema, body: sessionPatchSchema,
+      handler: async ({ params, body, user, res }) => {
+        await updateSession(dataSource, user!, params.id, body);
+        res.json({ session: await detail(params.id) });
+      },
+    }),
+    defineRoute({
+      method: 'put', path: '/:id/points', access: CALIBRATION_WRITERS, params: idParamSchema, body: pointsReplaceSchema,
+      handler: async ({ params, body, user, res }) => {
+        await writePoints(dataSource, user!, params.id, body.points, 'replace');
+        res.json({ session: await detail(params.id) });
+      },
+    }),
+    defineRoute({
+      method: 'post', path: '/:id/points/import', access: CALIBRATION_WRITERS, params: idParamSchema, query: importQuery, before: [csvUpload],
+      handler: async ({ params, query, user, req, res }) => {
+        const mapping = mappingOf(req.body?.mapping);
+        const session = await getSession(dataSource, params.id);
+        const preview = previewPointsCsv(readCsv(req.file!.buffer), mapping, (await sessionChannel(dataSource, session)).capture);
+        if (query.mode === 'preview') {
+          res.json(preview);
+          return;
+        }
+        if (!mapping) throw new BadRequestError('choose which column holds what before importing', { mapping: 'is required to import' });
+        if (preview.invalidCount > 0 && query.mode === 'all') {
+          throw new BadRequestError(`${preview.invalidCount} row${preview.invalidCount > 1 ? 's have' : ' has'} problems; nothing was imported`, undefined);
+        }
+        const points = preview.rows.flatMap((r) => (r.point ? [r.point] : []));
+        if (points.length === 0) throw new BadRequestError('no valid rows to import');
+        await writePoints(dataSource, user!, params.id, points, 'append');
+        res.status(201).json({ imported: points.length, skipped: preview.invalidCount, problems: preview.problems, session: await detail(params.id) });
+      },
+    }),
+    defineRoute({
+      method: 'patch', path: '/:id/points/:pointId', access: CALIBRATION_WRITERS, params: pointParams, body: pointExclusionSchema,
+      handler: async ({ params, body, user, res }) => {
+        const session = await getSession(dataSource, params.id);
+        if (!session.points.some((p) => p.id === params.pointId)) throw new BadRequestError(`point ${params.pointId} is not part of session ${params.id}`);
+        await setExclusion(dataSource, user!, params.pointId, body.excluded, body.reason);
+        res.json({ session: await detail(params.id) });
+      },
+    }),
+    defineRoute({
+      method: 'post', path: '/:id/complete', access: CALIBRATION_WRITERS, params: idParamSchema,
+      handler: async ({ params, user, req, res }) => {
+        const baseUrl = config.publicUrl ?? `${req.protocol}://${req.get('host')}`;
+        await completeSession(dataSource, mailer, user!, params.id, baseUrl);
+        res.json({ session: await detail(params.id) });
+      },
+    }),
+    defineRoute({
+      method: 'get', path: '/:id/export.h', access: CALIBRATION_READERS, params: idParamSchema,
+      handler: async ({ params, res }) => {
+        const { ctx, analysis } = await exportContext(params.id);
+        const name = `tallyvolt_${ctx.serialNumber}_${ctx.channelKey}`.replace(/[^A-Za-z0-9_]+/g, '_').toLowerCase();
+        res.type('text/x-c').attachment(`${name}.h`).send(cHeader(ctx, analysis.fit!));
+      },
+    }),
+    defineRoute({
+      method: 'get', path: '/:id/export.json', access: CALIBRATION_READERS, params: idParamSchema,
+      handler: async ({ params, res }) => {
+        const { ctx, analysis } = await exportContext(params.id);
+        res.attachment(`tallyvolt-${ctx.serialNumber}-${ctx.channelKey}.json`.replace(/[^A-Za-z0-9_.-]+/g, '-')).json(jsonExport(ctx, analysis.fit!));
+      },
+    }),
+  ];
+}

@@ -1,0 +1,84 @@
+import { fitPolynomial, inverseLine, predictInterval, fitInversePolynomial, predictValue, type PolynomialFit } from '../../../shared/fit/index.js';
+import type { FitSettings } from '../../../shared/schemas/calibration.js';
+import type { CalibrationPoint } from '../../entities/CalibrationPoint.js';
+
+/** |studentised residual| above this marks a point as suspect. */
+export const SUSPECT_LIMIT = 3;
+
+export interface FitView {
+  settings: FitSettings;
+  pointsUsed: number;
+  coefficients: number[];
+  standardErrors: number[];
+  residualStandardDeviationHz: number;
+  rSquared: number;
+  degreesOfFreedom: number;
+  /** Per stored point (excluded ones too): residual and studentised residual of the fit, null when excluded. */
+  points: { id: number; residualHz: number | null; studentised: number | null; suspect: boolean }[];
+  /** Fitted line with 95 % confidence and prediction bands across the fitted range, for the data plot. */
+  band: { appliedV: number; fittedHz: number; confidenceLowHz: number; confidenceHighHz: number; predictionLowHz: number; predictionHighHz: number }[];
+  /** volts = Σ c_k f^k: exact inverse for degree 1, least-squares inverse polynomial for 2–3. */
+  inverse: { coefficients: number[]; exact: boolean; maxInverseErrorV: number };
+  rangeV: { min: number; max: number };
+  rangeHz: { min: number; max: number };
+}
+
+const BAND_POINTS = 25;
+
+/** Least-squares fit of frequency on applied voltage over the points not excluded (weights 1/u² when all have u). */
+export function fitSession(settings: FitSettings, points: readonly CalibrationPoint[]): FitView {
+  const used = points.filter((p) => !p.excluded);
+  const x = used.map((p) => p.appliedV);
+  const y = used.map((p) => p.frequencyHz);
+  const weighted = settings.weighted && used.length > 0 && used.every((p) => p.uncertaintyHz !== null);
+  const fit = fitPolynomial(x, y, {
+    degree: settings.degree,
+    intercept: settings.intercept,
+    weights: weighted ? used.map((p) => 1 / (p.uncertaintyHz as number) ** 2) : undefined,
+  });
+  const byId = new Map(used.map((p, i) => [p.id, i]));
+  const view: FitView = {
+    settings: { ...settings, weighted },
+    pointsUsed: used.length,
+    coefficients: fit.coefficients,
+    standardErrors: fit.standardErrors,
+    residualStandardDeviationHz: fit.residualStandardDeviation,
+    rSquared: fit.rSquared,
+    degreesOfFreedom: fit.residualDegreesOfFreedom,
+    points: points.map((p) => {
+      const i = byId.get(p.id);
+      if (i === undefined) return { id: p.id, residualHz: null, studentised: null, suspect: false };
+      const s = fit.externallyStudentisedResiduals[i] ?? fit.studentisedResiduals[i];
+      return { id: p.id, residualHz: fit.residuals[i], studentised: s, suspect: s !== null && Math.abs(s) > SUSPECT_LIMIT };
+    }),
+    band: bandOf(fit),
+    inverse: inverseOf(fit),
+    rangeV: { min: fit.xMin, max: fit.xMax },
+    rangeHz: { min: Math.min(predictValue(fit, fit.xMin), predictValue(fit, fit.xMax)), max: Math.max(predictValue(fit, fit.xMin), predictValue(fit, fit.xMax)) },
+  };
+  return view;
+}
+
+function bandOf(fit: PolynomialFit): FitView['band'] {
+  if (fit.residualDegreesOfFreedom < 1) return [];
+  return Array.from({ length: BAND_POINTS }, (_, i) => {
+    const v = fit.xMin + ((fit.xMax - fit.xMin) * i) / (BAND_POINTS - 1);
+    const c = predictInterval(fit, v, 0.95, 'confidence');
+    const p = predictInterval(fit, v, 0.95, 'prediction');
+    return { appliedV: v, fittedHz: c.fitted, confidenceLowHz: c.low, confidenceHighHz: c.high, predictionLowHz: p.low, predictionHighHz: p.high };
+  });
+}
+
+/** The firmware's form: volts from hertz. */
+function inverseOf(fit: PolynomialFit): FitView['inverse'] {
+  if (fit.degree === 1) {
+    const line = inverseLine(fit);
+    return { coefficients: [line.offset, line.gain], exact: true, maxInverseErrorV: 0 };
+  }
+  // A dense sample of the fitted forward curve, inverted by least squares.
+  const volts = Array.from({ length: 101 }, (_, i) => fit.xMin + ((fit.xMax - fit.xMin) * i) / 100);
+  const hertz = volts.map((v) => predictValue(fit, v));
+  const inverse = fitInversePolynomial(volts, hertz, fit.degree);
+  const maxInverseErrorV = Math.max(...volts.map((v, i) => Math.abs(predictValue(inverse, hertz[i]) - v)));
+  return { coefficients: inverse.coefficients, exact: false, maxInverseErrorV };
+}

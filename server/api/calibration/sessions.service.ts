@@ -1,0 +1,141 @@
+import type { DataSource, EntityManager } from 'typeorm';
+import type { CalibrationPointBody, SessionCreateBody, SessionPatchBody } from '../../../shared/schemas/calibration.js';
+import type { ChannelDefinition } from '../../../shared/schemas/chain.js';
+import { recordAudit } from '../../common/audit.js';
+import { BadRequestError, ConflictError, NotFoundError } from '../../common/errors.js';
+import type { Mailer } from '../../common/mail.js';
+import { Board } from '../../entities/Board.js';
+import { CalibrationPoint } from '../../entities/CalibrationPoint.js';
+import { CalibrationSession } from '../../entities/CalibrationSession.js';
+import { Channel } from '../../entities/Channel.js';
+import type { User } from '../../entities/User.js';
+import { sessionCompleteMessage } from './calibration.mail.js';
+import { compareBoard } from './design-spread.js';
+import { fitSession } from './session-fit.js';
+
+/** Fewest points a straight-line calibration with uncertainty can stand on. */
+export const MIN_POINTS_TO_COMPLETE = 3;
+
+export async function getSession(db: DataSource | EntityManager, id: number): Promise<CalibrationSession> {
+  const session = await db.getRepository(CalibrationSession).findOne({
+    where: { id },
+    relations: { board: { revision: { design: { owner: true } } }, tester: true, points: true },
+  });
+  if (!session) throw new NotFoundError(`no calibration session with id ${id}`);
+  session.points.sort((a, b) => a.position - b.position);
+  return session;
+}
+
+/** The channel of the board's revision that the session calibrates. */
+export async function sessionChannel(db: DataSource | EntityManager, session: CalibrationSession): Promise<ChannelDefinition> {
+  const channel = await db.getRepository(Channel).findOneBy({ revisionId: session.board.revisionId, key: session.channelKey });
+  if (!channel) throw new NotFoundError(`revision has no channel "${session.channelKey}"`);
+  return channel.definition;
+}
+
+function assertEditable(session: CalibrationSession): void {
+  if (session.state !== 'draft') throw new ConflictError(`calibration session ${session.id} is complete and can no longer change; start a new session`);
+}
+
+export async function createSession(dataSource: DataSource, actor: User, boardId: number, body: SessionCreateBody): Promise<CalibrationSession> {
+  const id = await dataSource.transaction(async (m) => {
+    const board = await m.getRepository(Board).findOneBy({ id: boardId });
+    if (!board) throw new NotFoundError(`no board with id ${boardId}`);
+    const keys = (await m.getRepository(Channel).findBy({ revisionId: board.revisionId })).map((c) => c.key);
+    if (!keys.includes(body.channelKey)) {
+      throw new BadRequestError(`the board's revision has no channel "${body.channelKey}"; its channels are ${keys.join(', ')}`, { channelKey: `must be one of ${keys.join(', ')}` });
+    }
+    const repo = m.getRepository(CalibrationSession);
+    const session = await repo.save(repo.create({ ...body, boardId, testerId: actor.id, state: 'draft', completedAt: null }));
+    await recordAudit(m, actor.id, 'calibration.create', `board:${boardId}`, { session: session.id, channel: body.channelKey });
+    return session.id;
+  });
+  return getSession(dataSource, id);
+}
+
+export async function updateSession(dataSource: DataSource, actor: User, id: number, patch: SessionPatchBody): Promise<CalibrationSession> {
+  await dataSource.transaction(async (m) => {
+    const session = await getSession(m, id);
+    assertEditable(session);
+    await m.getRepository(CalibrationSession).update({ id }, { ...patch, updatedAt: new Date() });
+    await recordAudit(m, actor.id, 'calibration.edit', `calibration:${id}`, patch as Record<string, unknown>);
+  });
+  return getSession(dataSource, id);
+}
+
+/** Replaces or appends points in one transaction; the table editor replaces, an import appends. */
+export async function writePoints(
+  dataSource: DataSource, actor: User, id: number, points: CalibrationPointBody[], mode: 'replace' | 'append',
+): Promise<CalibrationSession> {
+  await dataSource.transaction(async (m) => {
+    const session = await getSession(m, id);
+    assertEditable(session);
+    const repo = m.getRepository(CalibrationPoint);
+    if (mode === 'replace') await repo.delete({ sessionId: id });
+    const start = mode === 'replace' ? 0 : session.points.reduce((n, p) => Math.max(n, p.position + 1), 0);
+    const rows = points.map((p, i) => repo.create({ ...p, sessionId: id, position: start + i }));
+    for (let i = 0; i < rows.length; i += 200) await repo.insert(rows.slice(i, i + 200));
+    await m.getRepository(CalibrationSession).update({ id }, { updatedAt: new Date() });
+    await recordAudit(m, actor.id, mode === 'replace' ? 'calibration.points' : 'calibration.import', `calibration:${id}`, { points: points.length });
+  });
+  return getSession(dataSource, id);
+}
+
+/** Excludes (with a reason) or restores one point; excluded points stay stored. */
+export async function setExclusion(dataSource: DataSource, actor: User, pointId: number, excluded: boolean, reason: string): Promise<CalibrationSession> {
+  const sessionId = await dataSource.transaction(async (m) => {
+    const point = await m.getRepository(CalibrationPoint).findOneBy({ id: pointId });
+    if (!point) throw new NotFoundError(`no calibration point with id ${pointId}`);
+    assertEditable(await getSession(m, point.sessionId));
+    await m.getRepository(CalibrationPoint).update({ id: pointId }, { excluded, excludedReason: excluded ? reason : '' });
+    await recordAudit(m, actor.id, excluded ? 'calibration.exclude' : 'calibration.restore', `calibration:${point.sessionId}`, { point: pointId, reason });
+    return point.sessionId;
+  });
+  return getSession(dataSource, sessionId);
+}
+
+/** Fit and comparison with the design, or the reason there is none yet. */
+export async function analyseSession(dataSource: DataSource, session: CalibrationSession) {
+  const used = session.points.filter((p) => !p.excluded);
+  const needed = session.fit.degree + (session.fit.intercept ? 1 : 0) + 1;
+  if (used.length < needed) {
+    return { fit: null, comparison: null, reason: `needs at least ${needed} points that are not excluded for a degree ${session.fit.degree} fit (has ${used.length})` };
+  }
+  const channel = await sessionChannel(dataSource, session);
+  try {
+    const fit = fitSession(session.fit, session.points);
+    const comparison = compareBoard(channel, session.ambientC, session.points);
+    return { fit, comparison, reason: null };
+  } catch (err) {
+    return { fit: null, comparison: null, reason: (err as Error).message };
+  }
+}
+
+/** Completes a session and e-mails the design's owner the result with a link (after the commit). */
+export async function completeSession(dataSource: DataSource, mailer: Mailer, actor: User, id: number, baseUrl: string): Promise<CalibrationSession> {
+  const session = await getSession(dataSource, id);
+  assertEditable(session);
+  const { fit, comparison, reason } = await analyseSession(dataSource, session);
+  if (!fit || session.points.filter((p) => !p.excluded).length < MIN_POINTS_TO_COMPLETE) {
+    throw new ConflictError(`calibration session ${id} cannot be completed: ${reason ?? `needs at least ${MIN_POINTS_TO_COMPLETE} points`}`);
+  }
+  await dataSource.transaction(async (m) => {
+    const done = await m.getRepository(CalibrationSession).update({ id, state: 'draft' }, { state: 'complete', completedAt: new Date() });
+    if (!done.affected) throw new ConflictError(`calibration session ${id} is already complete`);
+    await recordAudit(m, actor.id, 'calibration.complete', `calibration:${id}`, { within: comparison?.within ?? null });
+  });
+  const design = session.board.revision.design;
+  const channel = await sessionChannel(dataSource, session);
+  try {
+    await mailer.send(sessionCompleteMessage({
+      to: design.owner.email, serialNumber: session.board.serialNumber, channelName: channel.name, designName: design.name,
+      revisionLetter: session.board.revision.letter, testerName: actor.displayName, within: comparison?.within ?? null,
+      summary: `Gain ${fit.coefficients[1].toPrecision(6)} Hz/V, offset ${fit.coefficients[0].toPrecision(4)} Hz, residual SD ${fit.residualStandardDeviationHz.toPrecision(3)} Hz from ${fit.pointsUsed} points.`,
+      link: `${baseUrl}/calibrations/${id}`,
+    }));
+  } catch (err) {
+    // The calibration stands; the notice is only a courtesy, so a mail failure is logged, not fatal.
+    console.error('[mail] calibration notice not sent', err);
+  }
+  return getSession(dataSource, id);
+}

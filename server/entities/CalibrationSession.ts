@@ -1,0 +1,60 @@
+import { Column, CreateDateColumn, Entity, Index, JoinColumn, ManyToOne, OneToMany, PrimaryGeneratedColumn, UpdateDateColumn } from 'typeorm';
+import type { CalibrationState, FitSettings, ReferenceSpec } from '../../shared/schemas/calibration.js';
+import { Board } from './Board.js';
+import { User } from './User.js';
+import type { CalibrationPoint } from './CalibrationPoint.js';
+
+/** One bench calibration of one channel of a board. */
+@Entity('calibration_sessions')
+@Index('IDX_calibration_sessions_board', ['boardId', 'channelKey'])
+export class CalibrationSession {
+  @PrimaryGeneratedColumn()
+  id: number;
+
+  @ManyToOne(() => Board, { nullable: false, onDelete: 'CASCADE' })
+  @JoinColumn({ name: 'boardId', foreignKeyConstraintName: 'FK_calibration_sessions_board' })
+  board: Board;
+
+  @Column('integer')
+  boardId: number;
+
+  @Column('varchar', { length: 40 })
+  channelKey: string;
+
+  @ManyToOne(() => User, { nullable: false, onDelete: 'RESTRICT' })
+  @JoinColumn({ name: 'testerId', foreignKeyConstraintName: 'FK_calibration_sessions_tester' })
+  tester: User;
+
+  @Column('integer')
+  testerId: number;
+
+  @Column('varchar', { length: 10 })
+  performedOn: string;
+
+  @Column('real')
+  ambientC: number;
+
+  @Column('simple-json')
+  reference: ReferenceSpec;
+
+  @Column('simple-json')
+  fit: FitSettings;
+
+  @Column('text', { default: '' })
+  note: string;
+
+  @Column('varchar', { length: 12, default: 'draft' })
+  state: CalibrationState;
+
+  @Column('datetime', { nullable: true })
+  completedAt: Date | null;
+
+  @OneToMany('CalibrationPoint', (p: CalibrationPoint) => p.session)
+  points: CalibrationPoint[];
+
+  @CreateDateColumn({ type: 'datetime', default: () => 'CURRENT_TIMESTAMP' })
+  createdAt: Date;
+
+  @UpdateDateColumn({ type: 'datetime', default: () => 'CURRENT_TIMESTAMP' })
+  updatedAt: Date;
+}
