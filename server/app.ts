@@ -12,6 +12,9 @@ import { designsRoutes } from './api/designs/designs.router.js';
 import { revisionsRoutes } from './api/revisions/revisions.router.js';
 import { revisionStudiesRoutes, runsRoutes } from './api/runs/runs.router.js';
 import { boardsRoutes } from './api/boards/boards.router.js';
+import { marginRoutes } from './api/margin/margin.router.js';
+import { revisionReviewRoutes, reviewsRoutes } from './api/reviews/reviews.router.js';
+import { reportRoutes } from './api/reports/reports.router.js';
 import { calibrationRoutes } from './api/calibration/calibration.router.js';
 import type { AppDeps } from './common/deps.js';
 import { apiNotFound, errorHandler } from './common/errors.js';
@@ -19,6 +22,7 @@ import { configurePassport } from './common/passport.js';
 import { inviteLimit, signInLimits } from './common/rate-limits.js';
 import { mountRoutes, type RouteTableRow } from './common/routes.js';
 import { createSessionMiddleware } from './common/session.js';
+import { sameOriginOnly } from './common/csrf.js';
 
 export const JSON_BODY_LIMIT = '256kb';
 
@@ -40,6 +44,7 @@ export function createApp(deps: AppDeps): BuiltApp {
   app.use(passport.initialize());
   app.use(passport.session());
 
+  app.use('/api', sameOriginOnly);
   const api = Router();
   const routeTable: RouteTableRow[] = [
     ...mountRoutes(api, '/auth', authRoutes(passport, signInLimits(config.rateLimits))),
@@ -50,6 +55,8 @@ export function createApp(deps: AppDeps): BuiltApp {
     ...mountRoutes(api, '/stock', stockRoutes(deps)),
     ...mountRoutes(api, '/designs', designsRoutes(deps)),
     ...mountRoutes(api, '/revisions', [...revisionsRoutes(deps), ...revisionStudiesRoutes(deps, deps.scheduler)]),
+    ...mountRoutes(api, '/revisions', [...marginRoutes(deps), ...revisionReviewRoutes(deps), ...reportRoutes(deps)]),
+    ...mountRoutes(api, '/reviews', reviewsRoutes(deps)),
     ...mountRoutes(api, '/runs', runsRoutes(deps, deps.scheduler)),
     ...mountRoutes(api, '/boards', boardsRoutes(deps)),
     ...mountRoutes(api, '/calibrations', calibrationRoutes(deps)),

@@ -17,8 +17,8 @@ export interface Running extends BuiltApp {
 }
 
 /** Opens the database and applies every pending migration (never `synchronize`). */
-export async function openDatabase(databasePath: string): Promise<DataSource> {
-  const dataSource = createDataSource(databasePath);
+export async function openDatabase(databasePath: string, busyTimeoutMs?: number): Promise<DataSource> {
+  const dataSource = createDataSource(databasePath, busyTimeoutMs);
   await dataSource.initialize();
   await dataSource.runMigrations({ transaction: 'each' });
   return dataSource;
@@ -26,7 +26,7 @@ export async function openDatabase(databasePath: string): Promise<DataSource> {
 
 /** Everything `npm start` and the API tests need: migrated database, mail path, Express app. */
 export async function bootstrap(config: AppConfig, options: { seed: DemoSeed | false }): Promise<Running> {
-  const dataSource = await openDatabase(config.databasePath);
+  const dataSource = await openDatabase(config.databasePath, config.busyTimeoutMs);
   if (options.seed) await seedDemoIfEmpty(dataSource, options.seed);
   const mailFake = config.smtpUrl ? null : await startMailFake(dataSource);
   const mailer = createMailer(config.mailFrom, config.smtpUrl ? { smtpUrl: config.smtpUrl } : { fakePort: mailFake!.port });

@@ -16,8 +16,10 @@ export interface AppConfig {
   trustProxy: boolean;
   rateLimits: boolean;
   distDir: string;
-  /** Worker threads for studies (default: one per core). */
+  /** Worker threads for studies (default: one per core but one). */
   studyThreads: number;
+  /** How long a writer waits for SQLite's lock before the request gets a 503. */
+  busyTimeoutMs: number;
 }
 
 function flag(value: string | undefined, fallback: boolean): boolean {
@@ -40,6 +42,8 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
     trustProxy: flag(env.TRUST_PROXY, false),
     rateLimits: flag(env.RATE_LIMITS, true),
     distDir: env.DIST_DIR ?? path.join(projectRoot, 'dist'),
-    studyThreads: Math.max(1, Number(env.STUDY_THREADS) || os.availableParallelism()),
+    busyTimeoutMs: Math.max(0, Number(env.DB_BUSY_TIMEOUT_MS) || 5000),
+    // One core stays free for the event loop, so requests are answered while a study runs.
+    studyThreads: Math.max(1, Number(env.STUDY_THREADS) || os.availableParallelism() - 1),
   };
 }

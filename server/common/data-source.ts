@@ -10,7 +10,7 @@ import { loadConfig } from '../config.js';
  * One SQLite file through better-sqlite3. WAL lets readers run beside the writer, foreign keys are off by
  * default in SQLite, and the busy timeout makes a second writer wait instead of failing at once.
  */
-export function createDataSource(databasePath: string): DataSource {
+export function createDataSource(databasePath: string, busyTimeoutMs = 5000): DataSource {
   if (databasePath !== ':memory:') fs.mkdirSync(path.dirname(databasePath), { recursive: true });
   return new DataSource({
     type: 'better-sqlite3',
@@ -23,7 +23,7 @@ export function createDataSource(databasePath: string): DataSource {
     prepareDatabase: (db: { pragma: (s: string) => unknown }) => {
       if (databasePath !== ':memory:') db.pragma('journal_mode = WAL');
       db.pragma('foreign_keys = ON');
-      db.pragma('busy_timeout = 5000');
+      db.pragma(`busy_timeout = ${Math.round(busyTimeoutMs)}`);
     },
   });
 }

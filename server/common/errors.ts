@@ -33,10 +33,21 @@ export const apiNotFound: RequestHandler = (req, _res, next) => {
   next(new NotFoundError(`no API route ${req.method} ${req.path}`));
 };
 
+/** SQLite's "database is locked" after the busy timeout, however TypeORM wraps it. */
+function isBusy(err: unknown): boolean {
+  const e = err as { code?: string; driverError?: { code?: string } } | null;
+  return e?.code === 'SQLITE_BUSY' || e?.driverError?.code === 'SQLITE_BUSY' || e?.code === 'SQLITE_BUSY_SNAPSHOT';
+}
+
 /** The one place errors become responses: `{ error, fields? }`, never a stack or SQL. */
 export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
   if (err instanceof HttpError) {
     res.status(err.status).json(err.fields ? { error: err.message, fields: err.fields } : { error: err.message });
+    return;
+  }
+  if (isBusy(err)) {
+    console.error(`[busy] ${req.method} ${req.originalUrl}: database locked past the busy timeout`);
+    res.status(503).set('Retry-After', '1').json({ error: 'the database is busy; nothing was changed, try again in a moment' });
     return;
   }
   // body-parser and multer mark their own errors with a status (413 too large, 400 bad JSON).

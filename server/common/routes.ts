@@ -39,6 +39,11 @@ export interface RouteTableRow {
   method: string;
   path: string;
   access: Access;
+  /** The route's own schemas, so tests can tell a valid input from a malformed one. */
+  body?: ZodType;
+  query?: ZodType;
+  /** Takes a multipart upload rather than JSON. */
+  upload: boolean;
 }
 
 /** Mounts specs on a router under `base` and returns the rows of the route table (used by the access tests). */
@@ -57,5 +62,8 @@ export function mountRoutes(router: Router, base: string, specs: RouteSpec[]): R
       await spec.handler(ctx);
     });
   }
-  return specs.map((s) => ({ method: s.method.toUpperCase(), path: `${base}${s.path}`, access: s.access }));
+  return specs.map((s) => ({
+    method: s.method.toUpperCase(), path: `${base}${s.path}`, access: s.access, body: s.body, query: s.query,
+    upload: (s.before ?? []).some((mw) => mw.name === 'csvUpload'),
+  }));
 }

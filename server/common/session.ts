@@ -21,7 +21,12 @@ function sessionSecret(config: AppConfig): string {
 
 /** Sessions live in SQLite (table `sessions`); the cookie is httpOnly, SameSite=Lax, Secure whenever the request is HTTPS. */
 export function createSessionMiddleware(dataSource: DataSource, config: AppConfig) {
-  const store = new TypeormStore({ cleanupLimit: 2, ttl: TWELVE_HOURS_MS / 1000 }).connect(dataSource.getRepository(SessionRecord));
+  const store = new TypeormStore({
+    cleanupLimit: 2,
+    ttl: TWELVE_HOURS_MS / 1000,
+    // Without this the store disconnects for good on the first error (e.g. a busy database).
+    onError: (_store, err) => console.error('[session] store error:', err.message),
+  }).connect(dataSource.getRepository(SessionRecord));
   return session({
     name: SESSION_COOKIE,
     secret: sessionSecret(config),

@@ -1,4 +1,5 @@
 import { channelStudy } from '../../shared/propagation/channel-study.js';
+import { computeMarginStudy } from '../api/margin/margin-study.js';
 import { ADAPTIVE_MAX_TRIALS, type StudyTask } from './study-task.js';
 
 /** Runs one task in a worker thread; errors travel back to the pool as rejections. */
@@ -14,6 +15,12 @@ export default function runStudyTask(task: StudyTask) {
     task.port?.postMessage({ progress });
   };
   report(0);
+  if (task.kind === 'margin') {
+    const margin = computeMarginStudy(task.data, (f) => report(Math.min(0.99, f)));
+    report(1);
+    task.port?.close();
+    return margin;
+  }
   const result = channelStudy(task.channel, {
     seed: task.seed,
     trials: task.trials,

@@ -13,3 +13,5 @@ export type { FaultOutcome } from './faults.js';
 export { runPrechargeStudy, summarisePrecharge, simulatePrechargeChunk } from './study.js';
 export type { PrechargeStudy, PrechargeStudyOptions, Distribution } from './study.js';
 export { readingErrorSamples } from './reading-errors.js';
+export { nominalClosability } from './closability.js';
+export type { Closability } from './closability.js';

@@ -92,12 +92,12 @@ describe('the demo design', () => {
   beforeAll(async () => { t = await createTestApp({}, 'full'); });
   afterAll(async () => { await t.close(); });
 
-  it('has an approved revision A and a draft B that changes the link-side bottom resistor', async () => {
+  it('has an approved revision A and B in review that changes the link-side bottom resistor', async () => {
     const lead = await t.signIn('lead@example.test', 'tallyvolt-lead');
     const list = await lead.get('/api/designs');
     expect(list.body.items.map((d: { name: string }) => d.name)).toEqual(['PM-2 pack monitor']);
     const design = (await lead.get(`/api/designs/${list.body.items[0].id}`)).body.design;
-    expect(design.revisions.map((r: { letter: string; state: string }) => `${r.letter}:${r.state}`)).toEqual(['A:approved', 'B:draft']);
+    expect(design.revisions.map((r: { letter: string; state: string }) => `${r.letter}:${r.state}`)).toEqual(['A:approved', 'B:in_review']);
     const [a, b] = await Promise.all(design.revisions.map((r: { id: number }) => lead.get(`/api/revisions/${r.id}`)));
     expect(a.body.revision.channels[1].definition.divider.bottom.nominalOhm).toBe(32400);
     expect(b.body.revision.channels[1].definition.divider.bottom.nominalOhm).toBe(33200);

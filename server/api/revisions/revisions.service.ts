@@ -9,6 +9,7 @@ import { Design } from '../../entities/Design.js';
 import { Revision } from '../../entities/Revision.js';
 import type { User } from '../../entities/User.js';
 import { compareLetters, nextRevisionLetter } from '../designs/revision-letters.js';
+import { copyMarginInputs } from '../margin/margin.service.js';
 
 export async function getRevision(dataSource: DataSource | EntityManager, id: number): Promise<Revision> {
   const revision = await dataSource.getRepository(Revision).findOne({
@@ -65,6 +66,7 @@ export async function startNextRevision(dataSource: DataSource, actor: User, des
     }));
     const channels = m.getRepository(Channel);
     await channels.save(source.channels.map((c) => channels.create({ revisionId: created.id, key: c.key, position: c.position, definition: c.definition })));
+    await copyMarginInputs(m, from.id, created.id);
     await m.getRepository(Design).update({ id: designId }, { updatedAt: new Date() });
     await recordAudit(m, actor.id, 'revision.start', `revision:${created.id}`, { from: from.letter });
     return created.id;

@@ -4,6 +4,7 @@ import type { ChannelDefinition } from '../../../shared/schemas/chain.js';
 import { HttpError } from '../../common/errors.js';
 import { AnalysisRun } from '../../entities/AnalysisRun.js';
 import type { StudyPool } from '../../workers/study-pool.js';
+import type { MarginStudyData } from '../margin/margin-study.js';
 
 /** Studies one person may have waiting or running at once. */
 export const PER_USER_LIMIT = 2;
@@ -102,35 +103,50 @@ export class RunScheduler {
     if (!run || run.state !== 'queued') return;
     const startedAt = new Date();
     await repo.update({ id: runId }, { state: 'running', startedAt });
-    const inputs = run.inputs as unknown as UncertaintyRunInputs;
-    const perChannel = inputs.channels.map(() => 0);
     let lastWrite = Date.now();
-    const onProgress = (i: number) => (p: number) => {
-      perChannel[i] = p;
-      active.progress = perChannel.reduce((a, b) => a + b, 0) / perChannel.length;
+    const setProgress = (p: number) => {
+      active.progress = p;
       if (Date.now() - lastWrite > PROGRESS_WRITE_MS) {
         lastWrite = Date.now();
         void repo.update({ id: runId, state: 'running' }, { progress: active.progress });
       }
     };
     try {
-      const studies = await Promise.all(inputs.channels.map((c, i) =>
-        this.pool.run(
-          {
-            kind: 'channel-uncertainty', channel: c.definition, seed: run.seed, trials: run.trials ?? undefined,
-            ndig: run.adaptiveDigits ?? undefined, coverageProbability: inputs.coverageProbability, gridPoints: inputs.gridPoints,
-          },
-          { onProgress: onProgress(i), signal: active.controller.signal },
-        ),
-      ));
-      const result = { channels: inputs.channels.map((c, i) => ({ key: c.key, name: c.definition.name, study: studies[i] })) };
-      await this.finish(runId, { state: 'done', result, progress: 1 }, startedAt);
+      const result = run.kind === 'margin'
+        ? await this.marginStudy(run, active, setProgress)
+        : await this.uncertaintyStudy(run, active, setProgress);
+      await this.finish(runId, { state: 'done', result: result as QueryDeepPartialEntity<AnalysisRun>['result'], progress: 1 }, startedAt);
     } catch (err) {
       const cancelled = active.controller.signal.aborted;
       await this.finish(runId, cancelled
         ? { state: 'cancelled', error: this.closed ? 'the server stopped while this study ran' : 'cancelled while running' }
         : { state: 'failed', error: failureReason(err) }, startedAt);
     }
+  }
+
+  private async uncertaintyStudy(run: AnalysisRun, active: ActiveRun, setProgress: (p: number) => void) {
+    const inputs = run.inputs as unknown as UncertaintyRunInputs;
+    const perChannel = inputs.channels.map(() => 0);
+    const onProgress = (i: number) => (p: number) => {
+      perChannel[i] = p;
+      setProgress(perChannel.reduce((a, b) => a + b, 0) / perChannel.length);
+    };
+    const studies = await Promise.all(inputs.channels.map((c, i) =>
+      this.pool.run(
+        {
+          kind: 'channel-uncertainty', channel: c.definition, seed: run.seed, trials: run.trials ?? undefined,
+          ndig: run.adaptiveDigits ?? undefined, coverageProbability: inputs.coverageProbability, gridPoints: inputs.gridPoints,
+        },
+        { onProgress: onProgress(i), signal: active.controller.signal },
+      ),
+    ));
+    return { channels: inputs.channels.map((c, i) => ({ key: c.key, name: c.definition.name, study: studies[i] })) };
+  }
+
+  /** One worker runs the whole margin study; its inputs snapshot holds everything it needs. */
+  private async marginStudy(run: AnalysisRun, active: ActiveRun, setProgress: (p: number) => void): Promise<Record<string, unknown>> {
+    const data = run.inputs as unknown as MarginStudyData;
+    return this.pool.run({ kind: 'margin', data }, { onProgress: setProgress, signal: active.controller.signal });
   }
 
   private async finish(runId: number, patch: QueryDeepPartialEntity<AnalysisRun>, startedAt?: Date): Promise<void> {

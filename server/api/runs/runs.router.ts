@@ -5,6 +5,8 @@ import type { AppDeps } from '../../common/deps.js';
 import { defineRoute, type RouteSpec } from '../../common/routes.js';
 import { DESIGN_READERS, DESIGN_WRITERS } from '../designs/designs.router.js';
 import { getRevision } from '../revisions/revisions.service.js';
+import { MARGIN_RUNNERS } from '../margin/margin.router.js';
+import { currentRunHash } from '../margin/margin.service.js';
 import { toRunView } from './runs.mapper.js';
 import type { RunScheduler } from './run-scheduler.js';
 import { cancelRun, channelsHash, getRun, listRuns, requestUncertaintyStudy } from './runs.service.js';
@@ -41,11 +43,11 @@ export function runsRoutes({ dataSource }: AppDeps, scheduler: RunScheduler): Ro
       handler: async ({ params, res }) => {
         const run = await getRun(dataSource, params.id);
         const revision = await getRevision(dataSource, run.revisionId);
-        res.json({ run: toRunView(run, scheduler.liveProgress(run.id), channelsHash(revision.channels)) });
+        res.json({ run: toRunView(run, scheduler.liveProgress(run.id), await currentRunHash(dataSource, revision, run.kind)) });
       },
     }),
     defineRoute({
-      method: 'post', path: '/:id/cancel', access: DESIGN_WRITERS, params: idParamSchema,
+      method: 'post', path: '/:id/cancel', access: MARGIN_RUNNERS, params: idParamSchema,
       handler: async ({ params, user, res }) => {
         await cancelRun(dataSource, scheduler, user!, params.id);
         res.status(202).json({ ok: true });

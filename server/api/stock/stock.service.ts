@@ -69,6 +69,17 @@ export async function deleteStockPart(dataSource: DataSource, actor: User, id: n
 }
 
 /**
+ * Fault injection for the crash test only: with TALLYVOLT_FAULT_PAUSE_IMPORT_MS set, an import stops
+ * after its first chunk (inside the transaction) and says so, so the test can kill the process right there.
+ */
+async function faultPause(): Promise<void> {
+  const ms = Number(process.env.TALLYVOLT_FAULT_PAUSE_IMPORT_MS);
+  if (!(ms > 0)) return;
+  console.log('[fault] import paused inside its transaction');
+  await new Promise((resolve) => setTimeout(resolve, ms));
+}
+
+/**
  * Stores the previewed rows in one transaction: all of them, or only the valid ones when the person chose so.
  * With `onlyValid` false, any bad row refuses the whole file and nothing is stored.
  */
@@ -83,7 +94,10 @@ export async function importStock(dataSource: DataSource, actor: User, preview: 
   await dataSource.transaction(async (m) => {
     const repo = m.getRepository(StockPart);
     // Chunked inserts keep each statement under SQLite's variable limit.
-    for (let i = 0; i < parts.length; i += 200) await repo.insert(parts.slice(i, i + 200).map((p) => repo.create(p)));
+    for (let i = 0; i < parts.length; i += 200) {
+      await repo.insert(parts.slice(i, i + 200).map((p) => repo.create(p)));
+      if (i === 0) await faultPause();
+    }
     await recordAudit(m, actor.id, 'stock.import', 'stock', { rows: parts.length, skipped: preview.invalidCount });
   });
   return parts.length;

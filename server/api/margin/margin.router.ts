@@ -1,0 +1,53 @@
+import { z } from 'zod';
+import { idParamSchema } from '../../../shared/schemas/common.js';
+import { marginInputsSchema, marginStudyRequestSchema } from '../../../shared/schemas/margin.js';
+import type { AppDeps } from '../../common/deps.js';
+import { defineRoute, type RouteSpec } from '../../common/routes.js';
+import { DESIGN_READERS, DESIGN_WRITERS } from '../designs/designs.router.js';
+import { getRevision } from '../revisions/revisions.service.js';
+import { toRunView } from '../runs/runs.mapper.js';
+import { listRuns } from '../runs/runs.service.js';
+import { currentRunHash, marginInputsOf, requestMarginStudy, saveMarginInputs, type StoredMarginInputs } from './margin.service.js';
+
+/** The margin study is the lead's tool, and designers need it finished before they submit. */
+export const MARGIN_RUNNERS = ['designer', 'lead', 'admin'] as const;
+const noQuery = z.strictObject({});
+
+const inputsView = (s: StoredMarginInputs, editable: boolean) => ({
+  inputs: s.inputs, stored: s.stored, editable, updatedAt: s.updatedAt ? new Date(s.updatedAt).toISOString() : null, updatedById: s.updatedById,
+});
+
+/** Margin inputs and margin studies of a revision (mounted under /api/revisions). */
+export function marginRoutes({ dataSource, scheduler }: AppDeps): RouteSpec[] {
+  return [
+    defineRoute({
+      method: 'get', path: '/:id/margin-inputs', access: DESIGN_READERS, params: idParamSchema,
+      handler: async ({ params, res }) => {
+        const revision = await getRevision(dataSource, params.id);
+        res.json(inputsView(await marginInputsOf(dataSource, params.id), revision.state === 'draft'));
+      },
+    }),
+    defineRoute({
+      method: 'put', path: '/:id/margin-inputs', access: DESIGN_WRITERS, params: idParamSchema, body: marginInputsSchema,
+      handler: async ({ params, body, user, res }) => {
+        res.json(inputsView(await saveMarginInputs(dataSource, user!, params.id, body), true));
+      },
+    }),
+    defineRoute({
+      method: 'post', path: '/:id/margin-studies', access: MARGIN_RUNNERS, params: idParamSchema, body: marginStudyRequestSchema.default({ trials: 100_000, faultTrials: 10_000, readingErrorTrials: 20_000 }),
+      handler: async ({ params, body, user, res }) => {
+        const run = await requestMarginStudy(dataSource, scheduler, user!, params.id, body);
+        res.status(202).json({ run: { ...toRunView(run, 0), inputs: undefined } });
+      },
+    }),
+    defineRoute({
+      method: 'get', path: '/:id/margin-studies', access: DESIGN_READERS, params: idParamSchema, query: noQuery,
+      handler: async ({ params, res }) => {
+        const revision = await getRevision(dataSource, params.id);
+        const hash = await currentRunHash(dataSource, revision, 'margin');
+        const runs = await listRuns(dataSource, params.id, 'margin');
+        res.json({ items: runs.map((r) => toRunView(r, scheduler.liveProgress(r.id), hash)) });
+      },
+    }),
+  ];
+}

@@ -1,0 +1,63 @@
+import { idParamSchema } from '../../../shared/schemas/common.js';
+import { approveSchema, requestChangesSchema, reviewListQuerySchema } from '../../../shared/schemas/reviews.js';
+import type { AppDeps } from '../../common/deps.js';
+import { defineRoute, type RouteSpec } from '../../common/routes.js';
+import { DESIGN_READERS, DESIGN_WRITERS } from '../designs/designs.router.js';
+import { toRevisionSummary } from '../designs/designs.mapper.js';
+import { decideReview, listReviews, reopenRevision, submitForReview } from './reviews.service.js';
+
+export const REVIEWERS = ['lead', 'admin'] as const;
+
+const baseUrlOf = (config: AppDeps['config'], req: { protocol: string; get(name: string): string | undefined }) =>
+  config.publicUrl ?? `${req.protocol}://${req.get('host')}`;
+
+/** Review transitions of a revision (mounted under /api/revisions). */
+export function revisionReviewRoutes({ dataSource, mailer, config }: AppDeps): RouteSpec[] {
+  return [
+    defineRoute({
+      method: 'post', path: '/:id/submit', access: DESIGN_WRITERS, params: idParamSchema,
+      handler: async ({ params, user, req, res }) => {
+        const { revision, mail } = await submitForReview(dataSource, mailer, user!, params.id, baseUrlOf(config, req));
+        res.json({ revision: toRevisionSummary(revision), mail });
+      },
+    }),
+    defineRoute({
+      method: 'post', path: '/:id/approve', access: REVIEWERS, params: idParamSchema, body: approveSchema,
+      handler: async ({ params, body, user, req, res }) => {
+        const { revision, mail } = await decideReview(dataSource, mailer, user!, params.id, 'approve', body.comment, baseUrlOf(config, req));
+        res.json({ revision: toRevisionSummary(revision), mail });
+      },
+    }),
+    defineRoute({
+      method: 'post', path: '/:id/request-changes', access: REVIEWERS, params: idParamSchema, body: requestChangesSchema,
+      handler: async ({ params, body, user, req, res }) => {
+        const { revision, mail } = await decideReview(dataSource, mailer, user!, params.id, 'request-changes', body.comment, baseUrlOf(config, req));
+        res.json({ revision: toRevisionSummary(revision), mail });
+      },
+    }),
+    defineRoute({
+      method: 'post', path: '/:id/reopen', access: DESIGN_WRITERS, params: idParamSchema,
+      handler: async ({ params, user, res }) => { res.json({ revision: toRevisionSummary(await reopenRevision(dataSource, user!, params.id)) }); },
+    }),
+  ];
+}
+
+/** The leads' list of revisions waiting for (or past) review (mounted under /api/reviews). */
+export function reviewsRoutes({ dataSource }: AppDeps): RouteSpec[] {
+  return [
+    defineRoute({
+      method: 'get', path: '', access: DESIGN_READERS, query: reviewListQuerySchema,
+      handler: async ({ query, res }) => {
+        const { items, total } = await listReviews(dataSource, query);
+        res.json({
+          items: items.map((i) => ({
+            ...i,
+            revision: toRevisionSummary(i.revision),
+            design: { id: i.revision.design.id, name: i.revision.design.name, owner: { id: i.revision.design.owner.id, displayName: i.revision.design.owner.displayName } },
+          })),
+          total,
+        });
+      },
+    }),
+  ];
+}
