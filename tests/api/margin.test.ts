@@ -1,6 +1,5 @@
 import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
 import { createTestApp, type TestApp } from '../helpers/test-app.js';
-import { registerBoardReadingErrors } from '../../server/api/margin/board-errors.js';
 import { Revision } from '../../server/entities/Revision.js';
 
 type Agent = Awaited<ReturnType<TestApp['signIn']>>;
@@ -50,7 +49,6 @@ describe('margin studies through the API', () => {
     lead = await t.signIn('lead@example.test', 'tallyvolt-lead');
   });
   afterAll(async () => { await t.close(); });
-  afterEach(() => registerBoardReadingErrors(null));
 
   async function newRevision(name: string): Promise<number> {
     const { body } = await designer.post('/api/designs').send({ name });
@@ -175,17 +173,38 @@ describe('margin studies through the API', () => {
     expect(r.summary.find((c: { key: string }) => c.key === 'step-limit').pass).toBe(false);
   });
 
-  it('refuses board reading errors until board calibrations exist, and uses them once registered', async () => {
-    const id = await newRevision('Board errors');
-    await designer.put(`/api/revisions/${id}/margin-inputs`).send({ ...demoInputs, readingErrors: { mode: 'board', boardId: 3 }, faults: [] });
-    const refused = await designer.post(`/api/revisions/${id}/margin-studies`).send(small);
-    expect(refused.status).toBe(400);
-    expect(refused.body.error).toMatch(/^board calibrations are not available yet/);
-    registerBoardReadingErrors(async (_ds, boardId) => ({
-      description: `board ${boardId} (test)`,
-      channels: { pack: { kind: 'sigma', gainSigmaFraction: 0.001, offsetSigmaV: 0.1 }, link: { kind: 'samples', gainErrorFraction: [0.002, -0.001], offsetErrorV: [0.1, -0.2] } },
-    }));
+});
+
+describe('margin study with a built board\'s calibration', () => {
+  let t: TestApp;
+  beforeAll(async () => { t = await createTestApp({}, 'full'); });
+  afterAll(async () => { await t.close(); });
+  async function runMargin(agent: Agent, revisionId: number, request = small) {
+    const started = await agent.post(`/api/revisions/${revisionId}/margin-studies`).send(request);
+    expect(started.status).toBe(202);
+    const run = await waitForRun(agent, started.body.run.id);
+    expect(run.state).toBe('done');
+    return run;
+  }
+
+  it('reads both channels with the demo board\'s own calibration, and refuses a board with none', async () => {
+    const designer = await t.signIn('designer@example.test', 'tallyvolt-designer');
+    const tester = await t.signIn('tester@example.test', 'tallyvolt-tester');
+    const board = (await tester.get('/api/boards')).body.items[0];
+    const created = await designer.post('/api/designs').send({ name: 'Board errors' });
+    const id = created.body.design.revisions[0].id;
+    await designer.put(`/api/revisions/${id}/margin-inputs`).send({ ...demoInputs, readingErrors: { mode: 'board', boardId: board.id }, faults: [] });
     const r = (await runMargin(designer, id, { ...small, trials: 2000 })).result;
-    expect(r.model.readingErrors).toMatchObject({ mode: 'board', boardId: 3, description: 'board 3 (test)' });
+    expect(r.model.readingErrors).toMatchObject({ mode: 'board', boardId: board.id });
+    expect(r.model.readingErrors.description).toMatch(/PM-2-001.*pack 2026-11-20/);
+    // A calibrated board reads far tighter than the design's uncalibrated spread.
+    await designer.put(`/api/revisions/${id}/margin-inputs`).send({ ...demoInputs, readingErrors: { mode: 'uncalibrated' }, faults: [] });
+    const uncalibrated = (await runMargin(designer, id, { ...small, trials: 2000 })).result;
+    expect(r.model.readingErrors.channels[0].gainSigmaFraction).toBeLessThan(uncalibrated.model.readingErrors.channels[0].gainSigmaFraction);
+    const bare = await tester.post('/api/boards').send({ serialNumber: 'BARE-1', revisionId: board.revisionId, buildDate: '2026-11-30' });
+    await designer.put(`/api/revisions/${id}/margin-inputs`).send({ ...demoInputs, readingErrors: { mode: 'board', boardId: bare.body.board.id }, faults: [] });
+    const refused = await designer.post(`/api/revisions/${id}/margin-studies`).send(small);
+    expect(refused.status).toBe(409);
+    expect(refused.body.error).toBe('board BARE-1 has no completed calibration yet');
   });
 });

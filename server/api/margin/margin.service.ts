@@ -2,7 +2,7 @@ import crypto from 'node:crypto';
 import type { DataSource, EntityManager } from 'typeorm';
 import { marginInputsSchema, type MarginInputs, type MarginStudyRequest } from '../../../shared/schemas/margin.js';
 import { recordAudit } from '../../common/audit.js';
-import { BadRequestError, ConflictError } from '../../common/errors.js';
+import { ConflictError } from '../../common/errors.js';
 import { AnalysisRun } from '../../entities/AnalysisRun.js';
 import { MarginInputsRecord } from '../../entities/MarginInputsRecord.js';
 import type { Revision } from '../../entities/Revision.js';
@@ -10,7 +10,7 @@ import type { User } from '../../entities/User.js';
 import { assertDraft, getRevision } from '../revisions/revisions.service.js';
 import { contentHash } from '../runs/inputs-hash.js';
 import type { RunScheduler } from '../runs/run-scheduler.js';
-import { boardReadingErrorsProvider } from './board-errors.js';
+import { boardReadingErrors } from '../calibration/board-reading-errors.js';
 import { DEFAULT_MARGIN_INPUTS } from './margin-defaults.js';
 import type { MarginStudyData } from './margin-study.js';
 
@@ -67,13 +67,8 @@ function channelPair(revision: Revision, inputs: MarginInputs) {
 
 async function boardErrors(dataSource: DataSource, inputs: MarginInputs, packKey: string, linkKey: string): Promise<MarginStudyData['board']> {
   if (inputs.readingErrors.mode !== 'board') return undefined;
-  const provider = boardReadingErrorsProvider();
-  if (!provider) {
-    throw new BadRequestError('board calibrations are not available yet; use the uncalibrated or calibrated reading errors',
-      { 'readingErrors.mode': 'board calibrations are not available yet' });
-  }
   const boardId = inputs.readingErrors.boardId;
-  const board = await provider(dataSource, boardId);
+  const board = await boardReadingErrors(dataSource, boardId);
   const pack = board.channels[packKey];
   const link = board.channels[linkKey];
   if (!pack || !link) {

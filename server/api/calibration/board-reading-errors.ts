@@ -1,0 +1,42 @@
+import type { DataSource } from 'typeorm';
+import { readingErrorSamples } from '../../../shared/precharge/index.js';
+import type { ChannelDefinition } from '../../../shared/schemas/chain.js';
+import { ConflictError } from '../../common/errors.js';
+import { getBoard, sessionsOfBoards } from '../boards/boards.service.js';
+import type { BoardReadingErrors } from '../margin/board-errors.js';
+import { getSession, sessionChannel } from './sessions.service.js';
+import { fitSession } from './session-fit.js';
+
+const TRIALS = 20_000;
+const SEED = 62;
+
+/**
+ * The reading errors of one built board, per channel, from its latest completed calibrations: the chain
+ * read with that board's own line (calibrated at the bench temperature), so what remains is drift,
+ * nonlinearity, quantisation and the calibration's own uncertainty (coefficient standard errors, k = 2).
+ */
+export async function boardReadingErrors(dataSource: DataSource, boardId: number): Promise<BoardReadingErrors> {
+  const board = await getBoard(dataSource, boardId);
+  const complete = (await sessionsOfBoards(dataSource, [boardId])).filter((s) => s.state === 'complete');
+  const channels: BoardReadingErrors['channels'] = {};
+  const dates: string[] = [];
+  for (const summary of complete) {
+    if (channels[summary.channelKey]) continue; // newest first: keep the latest per channel
+    const session = await getSession(dataSource, summary.id);
+    const definition = await sessionChannel(dataSource, session);
+    const fit = fitSession({ ...session.fit, degree: 1 }, session.points);
+    const b1 = fit.coefficients[1];
+    const calibrated: ChannelDefinition = {
+      ...definition,
+      reconstruction: {
+        mode: 'calibrated', temperatureC: session.ambientC, coverageFactor: 2,
+        gainUncertaintyFraction: (2 * fit.standardErrors[1]) / Math.abs(b1),
+        offsetUncertaintyV: (2 * fit.standardErrors[0]) / Math.abs(b1),
+      },
+    };
+    channels[summary.channelKey] = readingErrorSamples(calibrated, { seed: SEED, trials: TRIALS });
+    dates.push(`${summary.channelKey} ${summary.performedOn}`);
+  }
+  if (dates.length === 0) throw new ConflictError(`board ${board.serialNumber} has no completed calibration yet`, { 'readingErrors.boardId': 'has no completed calibration' });
+  return { description: `board ${board.serialNumber} (revision ${board.revision.letter}), calibrations: ${dates.join(', ')}`, channels };
+}
