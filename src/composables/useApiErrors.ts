@@ -1,6 +1,7 @@
 import { ref } from 'vue';
 import { isApiError } from '@/services/apiError';
 import { notify } from './useNotices';
+import { capitalise } from '@/utils/formatQuantity';
 
 export interface ApiErrorOptions {
   /** Show non-field errors in `formError` (beside the form) instead of a toast. */
@@ -29,7 +30,7 @@ export function useApiErrors(options: ApiErrorOptions = {}) {
       const fields = error.fields ?? {};
       const shown = Object.keys(fields).filter((name) => !options.fields || options.fields.includes(name));
       if (shown.length > 0) {
-        fieldErrors.value = Object.fromEntries(shown.map((name) => [name, fields[name]]));
+        fieldErrors.value = Object.fromEntries(shown.map((name) => [name, capitalise(fields[name])]));
         if (shown.length === Object.keys(fields).length) return;
       }
       showMessage(error.message);
@@ -39,7 +40,9 @@ export function useApiErrors(options: ApiErrorOptions = {}) {
     showMessage('Something went wrong in the page. Reload it and try again.');
   }
 
-  function showMessage(message: string): void {
+  function showMessage(raw: string): void {
+    // The server writes terse lower-case sentences; people read them with a capital.
+    const message = capitalise(raw);
     if (options.inline) formError.value = message;
     else notify.error('Could not finish that', message);
   }

@@ -13,6 +13,8 @@ declare module 'vue-router' {
     bare?: boolean;
     /** Roles allowed in; absent means any signed-in person. */
     roles?: Role[];
+    /** Uses the full window width (editors, wide tables) instead of the reading measure. */
+    wide?: boolean;
     /** How the page is named when someone without the role is turned away. */
     area?: string;
   }

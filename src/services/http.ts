@@ -32,7 +32,9 @@ async function readError(response: Response): Promise<ApiError> {
 
 async function request<T>(method: Method, path: string, body?: unknown): Promise<T> {
   const headers: Record<string, string> = { Accept: 'application/json' };
-  if (body !== undefined) headers['Content-Type'] = 'application/json';
+  // A FormData body sets its own multipart boundary; everything else travels as JSON.
+  const isForm = body instanceof FormData;
+  if (body !== undefined && !isForm) headers['Content-Type'] = 'application/json';
 
   let response: Response;
   try {
@@ -40,7 +42,7 @@ async function request<T>(method: Method, path: string, body?: unknown): Promise
       method,
       headers,
       credentials: 'same-origin',
-      body: body === undefined ? undefined : JSON.stringify(body),
+      body: body === undefined ? undefined : isForm ? body : JSON.stringify(body),
     });
   } catch {
     throw new ApiError(0, 'The server could not be reached. Check your connection and try again.');
@@ -68,5 +70,7 @@ export const http = {
   post: <T>(path: string, body?: unknown) => request<T>('POST', path, body),
   patch: <T>(path: string, body: unknown) => request<T>('PATCH', path, body),
   put: <T>(path: string, body: unknown) => request<T>('PUT', path, body),
+  /** Multipart upload, e.g. a CSV file in the field `file`. */
+  upload: <T>(path: string, form: FormData) => request<T>('POST', path, form),
   delete: <T>(path: string) => request<T>('DELETE', path),
 };

@@ -1,0 +1,151 @@
+import { http } from './http';
+import { ApiError } from './apiError';
+import { queryString } from '@/utils/queryString';
+import type { CalibrationPointBody, CsvMapping, FitSettings, ReferenceSpec, SessionPatchBody } from '@shared/schemas/calibration';
+import type { SessionSummary } from './boards';
+
+export interface StoredPoint {
+  id: number;
+  position: number;
+  appliedV: number;
+  frequencyHz: number;
+  counts: number | null;
+  uncertaintyHz: number | null;
+  excluded: boolean;
+  excludedReason: string;
+}
+
+export interface FitView {
+  settings: FitSettings;
+  pointsUsed: number;
+  /** f = Σ b_k V^k, b_k in Hz per V^k. */
+  coefficients: number[];
+  standardErrors: number[];
+  residualStandardDeviationHz: number;
+  rSquared: number;
+  degreesOfFreedom: number;
+  points: { id: number; residualHz: number | null; studentised: number | null; suspect: boolean }[];
+  band: { appliedV: number; fittedHz: number; confidenceLowHz: number; confidenceHighHz: number; predictionLowHz: number; predictionHighHz: number }[];
+  /** V = Σ c_k f^k, the firmware's form. */
+  inverse: { coefficients: number[]; exact: boolean; maxInverseErrorV: number };
+  rangeV: { min: number; max: number };
+  rangeHz: { min: number; max: number };
+}
+
+export interface Spread {
+  low: number;
+  high: number;
+  median: number;
+  histogram: { edges: number[]; counts: number[] };
+}
+
+export interface DesignPopulation {
+  trials: number;
+  ambientC: number;
+  /** Reading gain error as a fraction (0.01 = 1 %). */
+  gainError: Spread;
+  offsetErrorV: Spread;
+}
+
+export interface Comparison {
+  population: DesignPopulation;
+  board: { gainError: number; offsetErrorV: number };
+  gainWithin: boolean;
+  offsetWithin: boolean;
+  within: boolean;
+  likelyCauses: string[];
+}
+
+export interface SessionAnalysis {
+  fit: FitView | null;
+  comparison: Comparison | null;
+  /** Why there is no fit yet, e.g. "no points yet". */
+  reason: string | null;
+}
+
+export interface SessionDetail extends SessionSummary {
+  reference: ReferenceSpec;
+  fit: FitSettings;
+  note: string;
+  board: { id: number; serialNumber: string; revisionId: number; revisionLetter: string; designId: number; designName: string };
+  points: StoredPoint[];
+  analysis: SessionAnalysis;
+}
+
+export interface RowProblem {
+  row: number;
+  column: string;
+  problem: string;
+}
+
+export interface PointsPreview {
+  headers: string[];
+  delimiter: string;
+  decimalSeparator: '.' | ',';
+  mapping: CsvMapping | null;
+  suggestedMapping: Partial<CsvMapping>;
+  rows: { row: number; point: CalibrationPointBody | null }[];
+  problems: RowProblem[];
+  validCount: number;
+  invalidCount: number;
+}
+
+export interface PointsImportOutcome {
+  imported: number;
+  skipped: number;
+  problems: RowProblem[];
+  session: SessionDetail;
+}
+
+export interface CalibrationOverview {
+  channelKey: string;
+  channelName: string;
+  population: DesignPopulation;
+  boards: { boardId: number; serialNumber: string; sessionId: number | null; gainError: number | null; offsetErrorV: number | null; within: boolean | null }[];
+}
+
+export type PointWrite = Pick<CalibrationPointBody, 'appliedV' | 'frequencyHz'> & Partial<Omit<CalibrationPointBody, 'appliedV' | 'frequencyHz'>>;
+
+const path = (id: number) => `/api/calibrations/${encodeURIComponent(id)}`;
+
+function uploadForm(file: File, mapping?: CsvMapping): FormData {
+  const form = new FormData();
+  form.append('file', file);
+  if (mapping) form.append('mapping', JSON.stringify(mapping));
+  return form;
+}
+
+export const calibrationsApi = {
+  get: (id: number) => http.get<{ session: SessionDetail }>(path(id)).then((r) => r.session),
+  update: (id: number, patch: SessionPatchBody) => http.patch<{ session: SessionDetail }>(path(id), patch).then((r) => r.session),
+  replacePoints: (id: number, points: PointWrite[]) =>
+    http.put<{ session: SessionDetail }>(`${path(id)}/points`, { points }).then((r) => r.session),
+  setExclusion: (id: number, pointId: number, excluded: boolean, reason: string) =>
+    http.patch<{ session: SessionDetail }>(`${path(id)}/points/${encodeURIComponent(pointId)}`, { excluded, reason }).then((r) => r.session),
+  complete: (id: number) => http.post<{ session: SessionDetail }>(`${path(id)}/complete`).then((r) => r.session),
+  /** Without a mapping the server answers with the header and its suggested mapping only. */
+  previewImport: (id: number, file: File, mapping?: CsvMapping) =>
+    http.upload<PointsPreview>(`${path(id)}/points/import?mode=preview`, uploadForm(file, mapping)),
+  import: (id: number, file: File, mapping: CsvMapping, mode: 'all' | 'valid-only') =>
+    http.upload<PointsImportOutcome>(`${path(id)}/points/import?mode=${mode}`, uploadForm(file, mapping)),
+  overview: (revisionId: number, channelKey: string) =>
+    http.get<CalibrationOverview>(`/api/calibrations/overview?${queryString({ revisionId, channelKey })}`),
+  exportUrl: (id: number, format: 'h' | 'json') => `${path(id)}/export.${format}`,
+};
+
+/** Fetches an export as a file, so a refusal ("nothing to export yet") reads as a message, not a blank page. */
+export async function fetchExport(id: number, format: 'h' | 'json'): Promise<{ blob: Blob; fileName: string }> {
+  let response: Response;
+  try {
+    response = await fetch(calibrationsApi.exportUrl(id, format), { credentials: 'same-origin' });
+  } catch {
+    throw new ApiError(0, 'The server could not be reached. Check your connection and try again.');
+  }
+  if (!response.ok) {
+    const body = (await response.json().catch(() => ({}))) as { error?: string };
+    throw new ApiError(response.status, body.error || `the server answered ${response.status}`);
+  }
+  const disposition = response.headers.get('Content-Disposition') ?? '';
+  const fileName = /filename="?([^";]+)"?/.exec(disposition)?.[1] ?? `calibration-${id}.${format}`;
+  return { blob: await response.blob(), fileName };
+}

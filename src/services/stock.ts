@@ -1,0 +1,63 @@
+import { http } from './http';
+import { queryString } from '@/utils/queryString';
+import type { StockPartBody } from '@shared/schemas/stock';
+
+export { STOCK_CSV_COLUMNS, STOCK_CSV_REQUIRED } from '@shared/schemas/stock';
+
+export interface StockPart extends StockPartBody {
+  id: number;
+  createdAt: string;
+  updatedAt: string;
+}
+
+export type StockSort = 'ohms' | 'tolerancePct' | 'quantity' | 'updatedAt';
+
+export interface StockListQuery {
+  search?: string;
+  sort: StockSort;
+  order: 'asc' | 'desc';
+  page: number;
+  pageSize: number;
+}
+
+export interface RowProblem {
+  row: number;
+  column: string;
+  problem: string;
+}
+
+export interface ImportPreview {
+  rows: { row: number; part: StockPartBody | null }[];
+  problems: RowProblem[];
+  validCount: number;
+  invalidCount: number;
+}
+
+export interface ImportOutcome {
+  imported: number;
+  skipped: number;
+  problems: RowProblem[];
+}
+
+export type ImportMode = 'preview' | 'all' | 'valid-only';
+
+/** Where the browser downloads the whole stock as CSV. */
+export const STOCK_EXPORT_URL = '/api/stock/export.csv';
+
+const path = (id: number) => `/api/stock/${encodeURIComponent(id)}`;
+
+function fileForm(file: File): FormData {
+  const form = new FormData();
+  form.append('file', file);
+  return form;
+}
+
+export const stockApi = {
+  list: (query: StockListQuery) => http.get<{ items: StockPart[]; total: number }>(`/api/stock?${queryString(query)}`),
+  create: (part: StockPartBody) => http.post<{ part: StockPart }>('/api/stock', part).then((r) => r.part),
+  update: (id: number, patch: Partial<StockPartBody>) => http.patch<{ part: StockPart }>(path(id), patch).then((r) => r.part),
+  remove: (id: number) => http.delete<void>(path(id)),
+  preview: (file: File) => http.upload<ImportPreview>('/api/stock/import?mode=preview', fileForm(file)),
+  import: (file: File, mode: Exclude<ImportMode, 'preview'>) =>
+    http.upload<ImportOutcome>(`/api/stock/import?mode=${mode}`, fileForm(file)),
+};

@@ -1,0 +1,38 @@
+import {
+  BarElement, CategoryScale, Chart, Filler, Legend, LinearScale, LineElement, PointElement, Title, Tooltip,
+  type Plugin,
+} from 'chart.js';
+
+/** Paints a white ground under the chart, so a downloaded PNG is not transparent. */
+const whiteGround: Plugin = {
+  id: 'tv-white-ground',
+  beforeDraw(chart) {
+    const { ctx, width, height } = chart;
+    ctx.save();
+    ctx.globalCompositeOperation = 'destination-over';
+    ctx.fillStyle = '#ffffff';
+    ctx.fillRect(0, 0, width, height);
+    ctx.restore();
+  },
+};
+
+Chart.register(BarElement, CategoryScale, Filler, Legend, LinearScale, LineElement, PointElement, Title, Tooltip, whiteGround);
+Chart.defaults.font.family = "'Source Sans 3', system-ui, sans-serif";
+Chart.defaults.color = '#3f4650';
+
+/** Chart colours from our palettes: steel for Monte Carlo, graphite for GUM, amber for worst case. */
+export const CHART_COLOURS = {
+  monteCarlo: '#2f5d8a',
+  monteCarloBand: 'rgba(99, 137, 178, 0.25)',
+  gum: '#545c66',
+  worstCase: '#a97400',
+};
+
+/** Saves a chart as a PNG file through a temporary link. */
+export function downloadChart(chart: Chart | undefined | null, fileName: string): void {
+  if (!chart) return;
+  const link = document.createElement('a');
+  link.href = chart.toBase64Image('image/png', 1);
+  link.download = fileName;
+  link.click();
+}
