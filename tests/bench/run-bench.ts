@@ -9,6 +9,7 @@ import { blockCountFor, channelKernel, planChunks, simulateBlocks, summariseChun
 import { readingErrorSamples, summarisePrecharge, type PrechargeDesign } from '../../shared/precharge/index.js';
 import { demoChannel } from '../fixtures/demo-channel.js';
 import { benchEventLoopDuringStudy } from './event-loop-bench.js';
+import { benchInitialBundle } from './bundle-size.js';
 import os from 'node:os';
 
 const seconds = (start: number): number => (performance.now() - start) / 1000;
@@ -107,6 +108,7 @@ await benchChannelPool();
 await benchPrecharge();
 await benchFinder();
 await benchEventLoopDuringStudy();
+await benchInitialBundle();
 clearInterval(sampler);
 const maxRssMiB = process.resourceUsage().maxRSS / 1024;
 console.log(`peak memory of the bench process (main thread and its workers): ${maxRssMiB.toFixed(0)} MiB max RSS (sampled ${(peakRss / 2 ** 20).toFixed(0)} MiB)`);
