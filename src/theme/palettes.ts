@@ -23,3 +23,9 @@ export const graphite = {
   0: '#ffffff', 50: '#f7f8f9', 100: '#eef0f2', 200: '#dde1e5', 300: '#c3c9cf', 400: '#9aa2ab',
   500: '#6b7480', 600: '#545c66', 700: '#3f4650', 800: '#2c3239', 900: '#1c2026', 950: '#111418',
 };
+
+/** A deep, slightly blue green for passed checks; anchor #2E7150, dark enough for text on its pale tints. */
+export const fern = {
+  50: '#f1f7f3', 100: '#dcede2', 200: '#b7dac4', 300: '#88c09e', 400: '#4f9c72', 500: '#2e7150',
+  600: '#266043', 700: '#1f4f37', 800: '#193f2c', 900: '#133022', 950: '#0c2017',
+};

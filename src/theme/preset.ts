@@ -1,6 +1,6 @@
 import { definePreset } from '@primeuix/themes';
 import Nora from '@primeuix/themes/nora';
-import { amber, caution, graphite, steel } from './palettes';
+import { amber, caution, fern, graphite, steel } from './palettes';
 
 /**
  * Tallyvolt's own look over the Nora base. The base components pick their warn and danger colours
@@ -15,6 +15,9 @@ export const tallyvoltPreset = definePreset(Nora, {
     orange: amber,
     yellow: amber,
     amber,
+    // Success tags and toasts: our green, with contrast for small text.
+    green: fern,
+    emerald: fern,
     // Info toasts and tags draw on blue and sky; steel keeps them in the family of the primary.
     blue: steel,
     sky: steel,
