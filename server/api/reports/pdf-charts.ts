@@ -1,3 +1,4 @@
+import { PDF_FONTS } from './pdf-fonts.js';
 import type { MarginStudyResult } from '../../../shared/schemas/margin.js';
 import { formatEng } from '../../../shared/units/index.js';
 import { COLOURS, type PdfWriter } from './pdf-layout.js';
@@ -19,7 +20,7 @@ const py = (f: Frame, v: number) => f.y + f.h - ((Math.min(Math.max(v, f.yMin), 
 function axes(pdf: PdfWriter, f: Frame, xTitle: string, yTitle: string, xLabel: (v: number) => string, yLabel: (v: number) => string): void {
   const { doc } = pdf;
   doc.save().lineWidth(0.6).strokeColor(COLOURS.muted).rect(f.x, f.y, f.w, f.h).stroke();
-  doc.fontSize(7).fillColor(COLOURS.muted).font('Helvetica');
+  doc.fontSize(7).fillColor(COLOURS.muted).font(PDF_FONTS.regular);
   for (let i = 0; i <= 5; i++) {
     const xv = f.xMin + ((f.xMax - f.xMin) * i) / 5;
     const yv = f.yMin + ((f.yMax - f.yMin) * i) / 5;

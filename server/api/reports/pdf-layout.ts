@@ -1,3 +1,4 @@
+import { PDF_FONTS, pdfFontFiles } from './pdf-fonts.js';
 import PDFDocument from 'pdfkit';
 import { textRuns } from './pdf-text.js';
 
@@ -20,8 +21,9 @@ export class PdfWriter {
 
   constructor(title: string) {
     this.doc = new PDFDocument({ size: 'A4', margin: 50, bufferPages: true, info: { Title: title, Creator: 'Tallyvolt' } });
+    for (const [name, bytes] of Object.entries(pdfFontFiles())) this.doc.registerFont(name, bytes);
     this.width = this.doc.page.width - 100;
-    this.doc.font('Helvetica').fontSize(10).fillColor(COLOURS.ink);
+    this.doc.font(PDF_FONTS.regular).fontSize(10).fillColor(COLOURS.ink);
   }
 
   get bottom(): number {
@@ -36,7 +38,7 @@ export class PdfWriter {
     }
   }
 
-  /** Draws text in Helvetica, switching to Symbol for Ω, τ, ≥ and the like. */
+  /** Draws text in Source Sans 3, switching to its Greek subset for Ω, τ, µ and the like. */
   rich(text: string, options: PDFKit.Mixins.TextOptions & { x?: number; y?: number; bold?: boolean; size?: number; colour?: string } = {}): void {
     const { x, y, bold, size, colour, ...rest } = options;
     const runs = textRuns(text, bold);
@@ -48,7 +50,7 @@ export class PdfWriter {
       if (i === 0 && x !== undefined) this.doc.text(run.text, x, y, { ...rest, continued: !last });
       else this.doc.text(run.text, { ...rest, continued: !last });
     });
-    this.doc.font('Helvetica').fillColor(COLOURS.ink);
+    this.doc.font(PDF_FONTS.regular).fillColor(COLOURS.ink);
   }
 
   heading(text: string, level: 1 | 2 = 1): void {
@@ -80,7 +82,7 @@ export class PdfWriter {
     this.ensure(3 * (size + 6));
     drawHeader();
     rows.forEach((cells, r) => {
-      this.doc.fontSize(size).font('Helvetica');
+      this.doc.fontSize(size).font(PDF_FONTS.regular);
       const height = Math.max(...cells.map((cell, i) => this.doc.heightOfString(cell.replace(/[^\x20-\x7e\xa0-\xff]/g, 'W'), { width: columns[i].width - 4 }))) + 4;
       if (this.doc.y + height > this.bottom) {
         this.doc.addPage();
@@ -112,7 +114,7 @@ export class PdfWriter {
       const y = this.doc.page.height - 40;
       const marginBottom = this.doc.page.margins.bottom;
       this.doc.page.margins.bottom = 0;
-      this.doc.font('Helvetica').fontSize(7.5).fillColor(COLOURS.muted)
+      this.doc.font(PDF_FONTS.regular).fontSize(7.5).fillColor(COLOURS.muted)
         .text(`${text}  ·  page ${i + 1} of ${range.count}`, this.left, y, { width: this.width, align: 'center', lineBreak: false });
       this.doc.page.margins.bottom = marginBottom;
     }

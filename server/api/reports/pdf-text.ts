@@ -1,41 +1,38 @@
+import { PDF_FONTS, type PdfFontName } from './pdf-fonts.js';
+
 /**
- * Helvetica (a built-in PDF font) covers only the WinAnsi characters; the few Greek letters and
- * maths signs a report needs come from the built-in Symbol font, addressed by its own codes.
+ * The report is set in Source Sans 3, embedded from its Latin and Greek subsets (Ω, τ, σ, µ come from
+ * Greek). The few maths signs neither subset holds are written out plainly.
  */
-const SYMBOL_CODES: Record<string, string> = {
-  'Ω': 'W', 'τ': 't', 'σ': 's', 'δ': 'd', 'ε': 'e', 'α': 'a', 'β': 'b', 'γ': 'g', 'Δ': 'D', 'π': 'p',
-  '≥': '\u00B3', '≤': '\u00A3', '≈': '\u00BB', '→': '\u00AE', '∞': '\u00A5', '√': '\u00D6', '−': '-', '‖': '\u00BD',
+const PLAIN_SWAPS: Record<string, string> = {
+  '≥': '>=', '≤': '<=', '≈': '~', '→': '->', '∞': 'inf', '√': 'sqrt', '⁶': '^6', '⁴': '^4', '⁵': '^5', '⁷': '^7', '⁸': '^8', '⁹': '^9', '⁰': '^0', 'ᵏ': '^k',
 };
 
-const PLAIN_SWAPS: Record<string, string> = { '‖': '||', '…': '...', '’': "'", '‘': "'", '“': '"', '”': '"', '–': '-', '³': '3', '¹': '1', '⁶': '6' };
-
-/** Characters of Windows-1252 above 0x7F that Helvetica's encoding has. */
-const WIN_ANSI_EXTRA = new Set('€‚ƒ„…†‡ˆ‰Š‹ŒŽ‘’“”•–—˜™š›œžŸ'.split(''));
-
-const isWinAnsi = (ch: string) => {
-  const code = ch.codePointAt(0)!;
-  return (code >= 0x20 && code <= 0x7e) || (code >= 0xa0 && code <= 0xff) || WIN_ANSI_EXTRA.has(ch);
-};
+const isGreek = (code: number) => code >= 0x0370 && code <= 0x03ff;
+const isLatin = (code: number) =>
+  code <= 0xff || code === 0x131 || code === 0x152 || code === 0x153 || (code >= 0x2000 && code <= 0x206f) || code === 0x20ac || code === 0x2122 || code === 0x2212 || code === 0x2215;
 
 export interface TextRun {
-  font: 'Helvetica' | 'Helvetica-Bold' | 'Symbol';
+  font: PdfFontName;
   text: string;
 }
 
-/** Splits text into runs Helvetica and Symbol can each draw; anything else becomes '?'. */
+/** Splits text into runs of the Latin and Greek fonts; anything neither holds is swapped or becomes '?'. */
 export function textRuns(text: string, bold = false): TextRun[] {
-  const base = bold ? 'Helvetica-Bold' : 'Helvetica';
+  const latin = bold ? PDF_FONTS.bold : PDF_FONTS.regular;
+  const greek = bold ? PDF_FONTS.greekBold : PDF_FONTS.greek;
   const runs: TextRun[] = [];
-  const push = (font: TextRun['font'], s: string) => {
+  const push = (font: PdfFontName, s: string) => {
     const last = runs.at(-1);
     if (last && last.font === font) last.text += s;
     else runs.push({ font, text: s });
   };
   for (const ch of text.replace(/\r?\n/g, ' ')) {
-    if (ch === '‖') push(base, '||');
-    else if (isWinAnsi(ch)) push(base, ch);
-    else if (SYMBOL_CODES[ch]) push('Symbol', SYMBOL_CODES[ch]);
-    else push(base, PLAIN_SWAPS[ch] ?? '?');
+    const code = ch.codePointAt(0)!;
+    if (code === 0xb5) push(greek, 'μ'); // micro sign drawn as Greek mu, the same glyph
+    else if (isLatin(code) && code >= 0x20) push(latin, ch);
+    else if (isGreek(code)) push(greek, ch);
+    else push(latin, PLAIN_SWAPS[ch] ?? '?');
   }
   return runs;
 }
