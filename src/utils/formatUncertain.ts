@@ -24,13 +24,15 @@ const MINUS = '\u2212';
 /** A signed quantity for errors: "+41.4 mV", "−0.652 V". */
 export function formatSigned(value: number | null | undefined, unit: string, digits = 3): string {
   if (typeof value !== 'number' || !Number.isFinite(value)) return '–';
-  const text = formatEng(Math.abs(value), unit, digits);
+  const text = formatEng(Math.abs(value), unit, digits, { keepTrailingZeros: true });
   return value === 0 ? text : `${value < 0 ? MINUS : '+'}${text}`;
 }
 
 /** A gain error fraction in per cent, signed: 0.00209 → "+0.209 %". */
 export function formatGainErrorPct(fraction: number | null | undefined, digits = 3): string {
   if (typeof fraction !== 'number' || !Number.isFinite(fraction)) return '–';
-  const text = formatPlain(Math.abs(fraction * 100), '%', digits);
+  const pct = Math.abs(fraction * 100);
+  // Trailing zeros stay, so the two ends of an interval carry the same digits (−1.19 % to +1.20 %).
+  const text = pct >= 1e-4 && pct < 1e6 ? `${pct.toPrecision(digits)} %` : formatPlain(pct, '%', digits);
   return fraction === 0 ? text : `${fraction < 0 ? MINUS : '+'}${text}`;
 }
