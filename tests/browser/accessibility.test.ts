@@ -66,4 +66,17 @@ describe('accessibility of the main screens', () => {
     await check(`/revisions/${revisionId}/study`, (p) => p.getByLabel('Number of trials').waitFor());
     expect(cspErrors).toEqual([]);
   });
+
+  it('finds no serious violations on the calibration session page', async () => {
+    const boards = await rig.page.evaluate(async () => (await (await fetch('/api/boards')).json()).items);
+    const sessionId = boards[0].latestByChannel.pack.id;
+    await check(`/calibrations/${sessionId}`, (p) => p.getByRole('table', { name: 'Calibration points' }).waitFor());
+    expect(cspErrors).toEqual([]);
+  });
+
+  it('finds no serious violations on the review page', async () => {
+    const reviews = await rig.page.evaluate(async () => (await (await fetch('/api/reviews')).json()).items);
+    await check(`/revisions/${reviews[0].revision.id}/review`, (p) => p.getByRole('region', { name: 'Margin summary' }).waitFor());
+    expect(cspErrors).toEqual([]);
+  });
 });
