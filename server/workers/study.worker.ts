@@ -1,6 +1,15 @@
+import os from 'node:os';
 import { channelStudy } from '../../shared/propagation/channel-study.js';
 import { computeMarginStudy } from '../api/margin/margin-study.js';
 import { ADAPTIVE_MAX_TRIALS, type StudyTask } from './study-task.js';
+
+// Studies are background work: on Linux a nice value set here applies to this thread alone, so the
+// kernel lets the request-serving main thread in first when the cores are busy.
+try {
+  os.setPriority(10);
+} catch {
+  // Not permitted or not supported: run at normal priority.
+}
 
 /** Runs one task in a worker thread; errors travel back to the pool as rejections. */
 export default function runStudyTask(task: StudyTask) {

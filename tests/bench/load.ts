@@ -58,7 +58,7 @@ try {
   console.log(`requests: ${result.requests.total} in ${result.duration} s (${result.requests.average.toFixed(0)}/s average)`);
   console.log(`latency: p50 ${result.latency.p50} ms, p99 ${result.latency.p99} ms, max ${result.latency.max} ms (target p99 < 50 ms)`);
   console.log(`errors: ${result.errors}, timeouts: ${result.timeouts}, non-2xx: ${result.non2xx} (target 0)`);
-  console.log(`maximum event-loop delay during the load: ${Math.max(0, ...loopMax).toFixed(1)} ms`);
+  console.log(`maximum event-loop delay during the load: ${Math.max(0, ...loopMax).toFixed(1)} ms (per second: ${loopMax.map((v) => v.toFixed(0)).join(' ')})`);
   console.log(`study during the load: ${run.state}, progress ${(run.progress * 100).toFixed(0)} %, ${run.durationMs ?? '—'} ms`);
 } finally {
   stop();
