@@ -1,4 +1,4 @@
-// Load check: signed-in reads at 200 requests/s for 20 s against the real server on loopback while a
+// Load check: signed-in reads of lists and a design at 200 requests/s for 20 s against the real server on loopback while a
 // 10⁶-trial uncertainty study runs in its worker pool. Prints latency, errors and event-loop delay.
 // Run: npm run load. Targets: p99 < 50 ms, 0 errors.
 import autocannon from 'autocannon';
@@ -50,7 +50,7 @@ try {
       { method: 'GET', path: `/api/designs/${design.id}` },
       { method: 'GET', path: `/api/revisions/${revisionId}` },
       { method: 'GET', path: '/api/stock' },
-      { method: 'GET', path: `/api/runs/${runId}` },
+      { method: 'GET', path: '/api/boards' },
     ],
   });
   const run = (await get(`/api/runs/${runId}`)).run;
