@@ -55,3 +55,19 @@ describe('cross-site request defence', () => {
     }
   });
 });
+
+describe('invitation guessing', () => {
+  it('is limited per address with a 429 and a message', async () => {
+    const t = await createTestApp();
+    try {
+      const statuses: number[] = [];
+      for (let i = 0; i < 31; i++) statuses.push((await t.agent().get(`/api/invites/${'g'.repeat(40)}${String(i).padStart(3, '0')}`)).status);
+      expect(statuses.slice(0, 30).every((s) => s === 404)).toBe(true);
+      const limited = await t.agent().post('/api/invites/accept').send({ token: 'x'.repeat(43), displayName: 'Guess Er', password: 'long enough pass' });
+      expect(limited.status).toBe(429);
+      expect(limited.body.error).toMatch(/too many invitation attempts/);
+    } finally {
+      await t.close();
+    }
+  });
+});
