@@ -13,3 +13,10 @@ export const listQuerySchema = z.strictObject({
     .max(200, { error: 'pageSize must be ≤ 200' })
     .default(50),
 });
+
+/** One problem in an uploaded file: its line number (the header is line 1), column and what is wrong. */
+export interface RowProblem {
+  row: number;
+  column: string;
+  problem: string;
+}

@@ -3,6 +3,9 @@ import { ApiError } from './apiError';
 import { queryString } from '@/utils/queryString';
 import type { CalibrationPointBody, CsvMapping, FitSettings, ReferenceSpec, SessionPatchBody } from '@shared/schemas/calibration';
 import type { SessionSummary } from './boards';
+import type { BoardComparison, DesignPopulation, FitView, PointsPreview, RowProblem } from '@shared/schemas/calibration-views';
+
+export type { BoardComparison as Comparison, DesignPopulation, FitView, PointsPreview, RowProblem, Spread } from '@shared/schemas/calibration-views';
 
 export interface StoredPoint {
   id: number;
@@ -15,50 +18,9 @@ export interface StoredPoint {
   excludedReason: string;
 }
 
-export interface FitView {
-  settings: FitSettings;
-  pointsUsed: number;
-  /** f = Σ b_k V^k, b_k in Hz per V^k. */
-  coefficients: number[];
-  standardErrors: number[];
-  residualStandardDeviationHz: number;
-  rSquared: number;
-  degreesOfFreedom: number;
-  points: { id: number; residualHz: number | null; studentised: number | null; suspect: boolean }[];
-  band: { appliedV: number; fittedHz: number; confidenceLowHz: number; confidenceHighHz: number; predictionLowHz: number; predictionHighHz: number }[];
-  /** V = Σ c_k f^k, the firmware's form. */
-  inverse: { coefficients: number[]; exact: boolean; maxInverseErrorV: number };
-  rangeV: { min: number; max: number };
-  rangeHz: { min: number; max: number };
-}
-
-export interface Spread {
-  low: number;
-  high: number;
-  median: number;
-  histogram: { edges: number[]; counts: number[] };
-}
-
-export interface DesignPopulation {
-  trials: number;
-  ambientC: number;
-  /** Reading gain error as a fraction (0.01 = 1 %). */
-  gainError: Spread;
-  offsetErrorV: Spread;
-}
-
-export interface Comparison {
-  population: DesignPopulation;
-  board: { gainError: number; offsetErrorV: number };
-  gainWithin: boolean;
-  offsetWithin: boolean;
-  within: boolean;
-  likelyCauses: string[];
-}
-
 export interface SessionAnalysis {
   fit: FitView | null;
-  comparison: Comparison | null;
+  comparison: BoardComparison | null;
   /** Why there is no fit yet, e.g. "no points yet". */
   reason: string | null;
 }
@@ -70,24 +32,6 @@ export interface SessionDetail extends SessionSummary {
   board: { id: number; serialNumber: string; revisionId: number; revisionLetter: string; designId: number; designName: string };
   points: StoredPoint[];
   analysis: SessionAnalysis;
-}
-
-export interface RowProblem {
-  row: number;
-  column: string;
-  problem: string;
-}
-
-export interface PointsPreview {
-  headers: string[];
-  delimiter: string;
-  decimalSeparator: '.' | ',';
-  mapping: CsvMapping | null;
-  suggestedMapping: Partial<CsvMapping>;
-  rows: { row: number; point: CalibrationPointBody | null }[];
-  problems: RowProblem[];
-  validCount: number;
-  invalidCount: number;
 }
 
 export interface PointsImportOutcome {

@@ -1,8 +1,9 @@
 import { dividerNominal, nominalFrequencyHz } from '../../../shared/chain/index.js';
 import { readingErrorSamples } from '../../../shared/precharge/index.js';
-import { histogramOf, type Histogram } from '../../../shared/propagation/index.js';
+import { histogramOf } from '../../../shared/propagation/index.js';
 import { fitPolynomial } from '../../../shared/fit/index.js';
 import type { ChannelDefinition } from '../../../shared/schemas/chain.js';
+import type { BoardComparison, DesignPopulation, Spread } from '../../../shared/schemas/calibration-views.js';
 import type { CalibrationPoint } from '../../entities/CalibrationPoint.js';
 import { contentHash } from '../runs/inputs-hash.js';
 
@@ -10,29 +11,6 @@ import { contentHash } from '../runs/inputs-hash.js';
 const POPULATION_TRIALS = 20_000;
 const POPULATION_SEED = 60063;
 const COVERAGE = 0.99;
-
-export interface Spread {
-  low: number;
-  high: number;
-  median: number;
-  histogram: Histogram;
-}
-
-export interface DesignPopulation {
-  trials: number;
-  ambientC: number;
-  gainError: Spread;
-  offsetErrorV: Spread;
-}
-
-export interface BoardComparison {
-  population: DesignPopulation;
-  board: { gainError: number; offsetErrorV: number };
-  gainWithin: boolean;
-  offsetWithin: boolean;
-  within: boolean;
-  likelyCauses: string[];
-}
 
 function spreadOf(values: Float64Array): Spread {
   const sorted = Float64Array.from(values).sort();

@@ -3,20 +3,8 @@ import { calibrationPointSchema } from '../../../shared/schemas/calibration.js';
 import type { CaptureDefinition } from '../../../shared/schemas/chain.js';
 import type { CsvTable } from '../../common/csv.js';
 import { BadRequestError } from '../../common/errors.js';
-import type { RowProblem } from '../stock/stock.csv.js';
+import type { PointsPreview, RowProblem } from '../../../shared/schemas/calibration-views.js';
 import { frequencyFromCounts } from './counts.js';
-
-export interface PointsPreview {
-  headers: string[];
-  delimiter: string;
-  decimalSeparator: '.' | ',';
-  mapping: CsvMapping | null;
-  suggestedMapping: Partial<CsvMapping>;
-  rows: { row: number; point: CalibrationPointBody | null }[];
-  problems: RowProblem[];
-  validCount: number;
-  invalidCount: number;
-}
 
 /** Words in a header that suggest its meaning; the first matching header wins. */
 const GUESSES: [keyof CsvMapping, string[]][] = [

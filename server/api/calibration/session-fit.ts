@@ -1,27 +1,12 @@
 import { fitPolynomial, inverseLine, predictInterval, fitInversePolynomial, predictValue, type PolynomialFit } from '../../../shared/fit/index.js';
 import type { FitSettings } from '../../../shared/schemas/calibration.js';
+import type { FitView } from '../../../shared/schemas/calibration-views.js';
+
+export type { FitView };
 import type { CalibrationPoint } from '../../entities/CalibrationPoint.js';
 
 /** |studentised residual| above this marks a point as suspect. */
 export const SUSPECT_LIMIT = 3;
-
-export interface FitView {
-  settings: FitSettings;
-  pointsUsed: number;
-  coefficients: number[];
-  standardErrors: number[];
-  residualStandardDeviationHz: number;
-  rSquared: number;
-  degreesOfFreedom: number;
-  /** Per stored point (excluded ones too): residual and studentised residual of the fit, null when excluded. */
-  points: { id: number; residualHz: number | null; studentised: number | null; suspect: boolean }[];
-  /** Fitted line with 95 % confidence and prediction bands across the fitted range, for the data plot. */
-  band: { appliedV: number; fittedHz: number; confidenceLowHz: number; confidenceHighHz: number; predictionLowHz: number; predictionHighHz: number }[];
-  /** volts = Σ c_k f^k: exact inverse for degree 1, least-squares inverse polynomial for 2–3. */
-  inverse: { coefficients: number[]; exact: boolean; maxInverseErrorV: number };
-  rangeV: { min: number; max: number };
-  rangeHz: { min: number; max: number };
-}
 
 const BAND_POINTS = 25;
 

@@ -3,14 +3,9 @@ import { formatEng } from '../../../shared/units/index.js';
 import { parseEngineering } from '../../../shared/units/index.js';
 import { STOCK_CSV_COLUMNS, STOCK_CSV_REQUIRED, stockPartSchema, type StockPartBody } from '../../../shared/schemas/stock.js';
 import type { CsvTable } from '../../common/csv.js';
+import type { RowProblem } from '../../../shared/schemas/common.js';
 import { BadRequestError } from '../../common/errors.js';
 import type { StockPart } from '../../entities/StockPart.js';
-
-export interface RowProblem {
-  row: number;
-  column: string;
-  problem: string;
-}
 
 export interface StockPreview {
   rows: { row: number; part: StockPartBody | null }[];
