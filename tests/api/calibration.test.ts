@@ -165,6 +165,14 @@ describe('bench calibration', () => {
     expect((await designer.put(`/api/calibrations/${id}/points`).send({ points: [] })).status).toBe(403);
     expect((await designer.post(`/api/boards/${boardId}/sessions`).send(SESSION)).status).toBe(403);
     expect((await designer.post(`/api/calibrations/${id}/complete`)).status).toBe(403);
+    expect((await designer.patch(`/api/calibrations/${id}`).send({ ambientC: 24 })).status).toBe(403);
+    const edited = await tester.patch(`/api/calibrations/${id}`).send({ ambientC: 24.5, fit: { degree: 2, intercept: true, weighted: false } });
+    expect(edited.status).toBe(200);
+    expect(edited.body.session).toMatchObject({ ambientC: 24.5, fit: { degree: 2 } });
+    const badEdit = await tester.patch(`/api/calibrations/${id}`).send({ ambientC: 300 });
+    expect(badEdit.status).toBe(400);
+    expect(badEdit.body.fields.ambientC).toBe('ambient temperature must be −40…85 °C');
+    await tester.patch(`/api/calibrations/${id}`).send({ fit: { degree: 1, intercept: true, weighted: true } });
     const early = await tester.post(`/api/calibrations/${id}/complete`);
     expect(early.status).toBe(409);
     expect(early.body.error).toMatch(/needs at least 3 points/);
