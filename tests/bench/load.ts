@@ -33,10 +33,12 @@ try {
   const get = async (p: string) => (await fetch(`${url}${p}`, { headers: { cookie } })).json();
   const design = (await get('/api/designs')).items[0];
   const revisionId = design.latestRevision.id;
-  const study = await fetch(`${url}/api/revisions/${revisionId}/studies`, {
+  // LOAD_WITHOUT_STUDY=1 measures the same reads on an idle server, to tell the study's cost from the rest.
+  const withStudy = !process.env.LOAD_WITHOUT_STUDY;
+  const study = withStudy ? await fetch(`${url}/api/revisions/${revisionId}/studies`, {
     method: 'POST', headers: { cookie, 'content-type': 'application/json' }, body: JSON.stringify({ trials: 1_000_000, seed: 1 }),
-  });
-  const runId = (await study.json()).run.id;
+  }) : null;
+  const runId = study ? (await study.json()).run.id : null;
   const loopLinesBefore = output.split('\n').length;
 
   const result = await autocannon({
@@ -53,13 +55,13 @@ try {
       { method: 'GET', path: '/api/boards' },
     ],
   });
-  const run = (await get(`/api/runs/${runId}`)).run;
+  const run = runId ? (await get(`/api/runs/${runId}`)).run : null;
   const loopMax = output.split('\n').slice(loopLinesBefore).map((l) => l.match(/\[loop\] max ([\d.]+)/)).filter(Boolean).map((m) => Number(m![1]));
   console.log(`requests: ${result.requests.total} in ${result.duration} s (${result.requests.average.toFixed(0)}/s average)`);
   console.log(`latency: p50 ${result.latency.p50} ms, p99 ${result.latency.p99} ms, max ${result.latency.max} ms (target p99 < 50 ms)`);
   console.log(`errors: ${result.errors}, timeouts: ${result.timeouts}, non-2xx: ${result.non2xx} (target 0)`);
   console.log(`maximum event-loop delay during the load: ${Math.max(0, ...loopMax).toFixed(1)} ms (per second: ${loopMax.map((v) => v.toFixed(0)).join(' ')})`);
-  console.log(`study during the load: ${run.state}, progress ${(run.progress * 100).toFixed(0)} %, ${run.durationMs ?? '—'} ms`);
+  console.log(run ? `study during the load: ${run.state}, progress ${(run.progress * 100).toFixed(0)} %, ${run.durationMs ?? '—'} ms` : 'no study during the load (LOAD_WITHOUT_STUDY)');
 } finally {
   stop();
 }
