@@ -3,12 +3,14 @@ import { Strategy as LocalStrategy } from 'passport-local';
 import type { DataSource } from 'typeorm';
 import { User } from '../entities/User.js';
 import { checkPassword, DUMMY_HASH } from './passwords.js';
+import { userCacheFor } from './user-cache.js';
 
 /** One message for unknown e-mail, wrong password and deactivated account, so none can be told apart. */
 export const SIGN_IN_FAILED = 'e-mail or password is not right';
 
 export function configurePassport(dataSource: DataSource): passport.PassportStatic {
   const users = dataSource.getRepository(User);
+  const cache = userCacheFor(dataSource);
   const instance = new passport.Passport() as unknown as passport.PassportStatic;
   instance.use(
     new LocalStrategy({ usernameField: 'email', passwordField: 'password' }, async (email, password, done) => {
@@ -25,7 +27,9 @@ export function configurePassport(dataSource: DataSource): passport.PassportStat
   instance.serializeUser((user, done) => done(null, (user as User).id));
   instance.deserializeUser(async (id: number, done) => {
     try {
-      const user = await users.findOneBy({ id });
+      const cached = cache.get(id);
+      const user = cached ?? (await users.findOneBy({ id }));
+      if (user && !cached) cache.set(user);
       // A deactivated account loses its sessions at the next request.
       done(null, user && user.active ? user : false);
     } catch (err) {

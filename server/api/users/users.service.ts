@@ -3,6 +3,7 @@ import type { UserPatchBody } from '../../../shared/schemas/users.js';
 import { recordAudit } from '../../common/audit.js';
 import { ConflictError, NotFoundError } from '../../common/errors.js';
 import { User } from '../../entities/User.js';
+import { userCacheFor } from '../../common/user-cache.js';
 
 export async function listUsers(dataSource: DataSource, page: number, pageSize: number) {
   const [items, total] = await dataSource.getRepository(User).findAndCount({
@@ -15,7 +16,7 @@ export async function listUsers(dataSource: DataSource, page: number, pageSize: 
 
 /** Changes a role or the active flag; the last active admin can be neither demoted nor deactivated. */
 export async function updateUser(dataSource: DataSource, actor: User, id: number, patch: UserPatchBody): Promise<User> {
-  return dataSource.transaction(async (manager) => {
+  const updated = await dataSource.transaction(async (manager) => {
     const repo = manager.getRepository(User);
     const user = await repo.findOneBy({ id });
     if (!user) throw new NotFoundError(`no person with id ${id}`);
@@ -32,4 +33,7 @@ export async function updateUser(dataSource: DataSource, actor: User, id: number
     await recordAudit(manager, actor.id, 'user.update', `user:${user.id}`, { before, after: { role: user.role, active: user.active } });
     return user;
   });
+  // After the commit, so no request can cache the row as it was before.
+  userCacheFor(dataSource).forget(id);
+  return updated;
 }
