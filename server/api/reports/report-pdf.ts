@@ -75,7 +75,7 @@ function marginSection(pdf: PdfWriter, report: ReviewReport): void {
   pdf.paragraph(window, { size: 8.5 });
   const verdict = { 'too-fast': 'too fast', 'too-slow': 'too slow', 'not-detected': 'NOT DETECTED', 'not-evaluated': 'not evaluated' } as const;
   pdf.table(
-    [{ header: 'Fault case', width: 200 }, { header: 'Verdict', width: 80 }, { header: 'Too fast', width: 55, align: 'right' }, { header: 'Too slow', width: 55, align: 'right' }, { header: 'Missed', width: 55, align: 'right' }, { header: 'Nominal closure', width: pdf.width - 445, align: 'right' }],
+    [{ header: 'Fault case', width: 170 }, { header: 'Verdict', width: 80 }, { header: 'Too fast', width: 55, align: 'right' }, { header: 'Too slow', width: 55, align: 'right' }, { header: 'Missed', width: 55, align: 'right' }, { header: 'Nominal closure', width: pdf.width - 415, align: 'right' }],
     r.faults.map((f) => [f.label, verdict[f.verdict], ...[f.tooFastFraction, f.tooSlowFraction, f.notDetectedFraction].map((x) => (x === null ? '-' : `${(x * 100).toFixed(1)} %`)),
       f.nominalCloseS === null ? 'never' : formatEng(f.nominalCloseS, 's')]),
     { colourOf: (row, col) => (col === 1 ? (['too-fast', 'too-slow'].includes(r.faults[row].verdict) ? COLOURS.primary : COLOURS.red) : undefined) },
