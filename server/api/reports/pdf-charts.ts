@@ -44,16 +44,18 @@ function polyline(pdf: PdfWriter, f: Frame, xs: number[], ys: number[], colour: 
   doc.stroke().restore();
 }
 
-function hline(pdf: PdfWriter, f: Frame, v: number, colour: string, label: string): void {
+/** A horizontal limit line; its label sits at the left, above or below the line, where rising curves leave room. */
+function hline(pdf: PdfWriter, f: Frame, v: number, colour: string, label: string, below = false): void {
   polyline(pdf, f, [f.xMin, f.xMax], [v, v], colour, 1, 3);
-  pdf.rich(label, { x: f.x + f.w - 150, y: py(f, v) - 10, width: 146, align: 'right', size: 7, colour });
+  pdf.rich(label, { x: f.x + 4, y: py(f, v) + (below ? 2 : -10), width: 146, size: 7, colour });
 }
 
-function vline(pdf: PdfWriter, f: Frame, v: number, colour: string, label: string): void {
+/** A vertical line; its label at the top, or at the foot of the frame when curves crowd the top. */
+function vline(pdf: PdfWriter, f: Frame, v: number, colour: string, label: string, atFoot = false): void {
   if (v < f.xMin || v > f.xMax) return;
   const { doc } = pdf;
   doc.save().lineWidth(0.8).strokeColor(colour).dash(2, { space: 2 }).moveTo(px(f, v), f.y).lineTo(px(f, v), f.y + f.h).stroke().restore();
-  pdf.rich(label, { x: px(f, v) + 2, y: f.y + 3, width: 80, size: 7, colour });
+  pdf.rich(label, { x: px(f, v) + 2, y: atFoot ? f.y + f.h - 11 : f.y + 3, width: 80, size: 7, colour });
 }
 
 function legend(pdf: PdfWriter, x: number, y: number, items: { label: string; colour: string }[]): number {
@@ -81,10 +83,10 @@ export function ratioChart(pdf: PdfWriter, r: MarginStudyResult): void {
   c.faults.forEach((fault, i) => polyline(pdf, f, c.timeS, fault.ratio, COLOURS.faults[i % COLOURS.faults.length], 1, 1.5));
   polyline(pdf, f, c.timeS, c.healthyNominal, COLOURS.primary, 1.4);
   hline(pdf, f, c.thresholdRatio, COLOURS.red, `closing threshold ${(c.thresholdRatio * 100).toFixed(1)} %`);
-  if (c.requiredRatio !== null) hline(pdf, f, c.requiredRatio, COLOURS.amber, `required ${(c.requiredRatio * 100).toFixed(1)} %`);
+  if (c.requiredRatio !== null) hline(pdf, f, c.requiredRatio, COLOURS.amber, `required ${(c.requiredRatio * 100).toFixed(1)} %`, true);
   if (c.window) {
-    vline(pdf, f, c.window.tooFastBelowS, COLOURS.muted, `too fast below ${formatEng(c.window.tooFastBelowS, 's')}`);
-    vline(pdf, f, c.window.tooSlowAboveS, COLOURS.muted, `too slow above ${formatEng(c.window.tooSlowAboveS, 's')}`);
+    vline(pdf, f, c.window.tooFastBelowS, COLOURS.muted, `too fast below ${formatEng(c.window.tooFastBelowS, 's')}`, true);
+    vline(pdf, f, c.window.tooSlowAboveS, COLOURS.muted, `too slow above ${formatEng(c.window.tooSlowAboveS, 's')}`, true);
   }
   const end = legend(pdf, pdf.left, f.y + f.h + 28, [
     { label: 'healthy envelope (lowest to highest of the trials drawn)', colour: COLOURS.wash },
