@@ -1,7 +1,6 @@
 import type { Board } from '../../entities/Board.js';
 import type { CalibrationSession } from '../../entities/CalibrationSession.js';
-
-const iso = (d: Date | string | null) => (d ? new Date(d).toISOString() : null);
+import { isoTimeOrNull } from '../../common/iso-time.js';
 
 export function toSessionSummary(s: CalibrationSession) {
   return {
@@ -12,9 +11,9 @@ export function toSessionSummary(s: CalibrationSession) {
     performedOn: s.performedOn,
     ambientC: s.ambientC,
     tester: s.tester ? { id: s.tester.id, displayName: s.tester.displayName } : undefined,
-    completedAt: iso(s.completedAt),
-    createdAt: iso(s.createdAt),
-    updatedAt: iso(s.updatedAt),
+    completedAt: isoTimeOrNull(s.completedAt),
+    createdAt: isoTimeOrNull(s.createdAt),
+    updatedAt: isoTimeOrNull(s.updatedAt),
   };
 }
 
@@ -44,7 +43,7 @@ export function toBoardView(b: Board, sessions: CalibrationSession[]) {
     designName: b.revision?.design?.name,
     buildDate: b.buildDate,
     note: b.note,
-    createdAt: iso(b.createdAt),
+    createdAt: isoTimeOrNull(b.createdAt),
     latestByChannel: latest,
   };
 }

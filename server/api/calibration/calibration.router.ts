@@ -13,6 +13,7 @@ import { toSessionDetail } from './calibration.mapper.js';
 import { cHeader, jsonExport, type ExportContext } from './firmware-export.js';
 import { previewPointsCsv } from './points-csv.js';
 import { analyseSession, completeSession, getSession, sessionChannel, setExclusion, updateSession, writePoints } from './sessions.service.js';
+import { publicBaseUrl } from '../../common/public-url.js';
 
 const importQuery = z.strictObject({
   mode: z.enum(['preview', 'all', 'valid-only'], { error: 'mode must be preview, all or valid-only' }).default('preview'),
@@ -112,7 +113,7 @@ export function calibrationRoutes({ dataSource, mailer, config }: AppDeps): Rout
     defineRoute({
       method: 'post', path: '/:id/complete', access: CALIBRATION_WRITERS, params: idParamSchema,
       handler: async ({ params, user, req, res }) => {
-        const baseUrl = config.publicUrl ?? `${req.protocol}://${req.get('host')}`;
+        const baseUrl = publicBaseUrl(config, req);
         await completeSession(dataSource, mailer, user!, params.id, baseUrl);
         res.json({ session: await detail(params.id) });
       },

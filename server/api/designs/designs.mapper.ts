@@ -1,8 +1,7 @@
 import type { Design } from '../../entities/Design.js';
 import type { Revision } from '../../entities/Revision.js';
 import { compareLetters } from './revision-letters.js';
-
-const iso = (d: Date | string) => new Date(d).toISOString();
+import { isoTime } from '../../common/iso-time.js';
 
 export function toRevisionSummary(r: Revision) {
   return {
@@ -12,8 +11,8 @@ export function toRevisionSummary(r: Revision) {
     note: r.note,
     basedOnId: r.basedOnId,
     createdBy: r.createdBy ? { id: r.createdBy.id, displayName: r.createdBy.displayName } : undefined,
-    createdAt: iso(r.createdAt),
-    updatedAt: iso(r.updatedAt),
+    createdAt: isoTime(r.createdAt),
+    updatedAt: isoTime(r.updatedAt),
   };
 }
 
@@ -25,8 +24,8 @@ export function toDesignRow(d: Design) {
     purpose: d.purpose,
     owner: { id: d.owner.id, displayName: d.owner.displayName },
     latestRevision: latest ? { id: latest.id, letter: latest.letter, state: latest.state } : null,
-    createdAt: iso(d.createdAt),
-    updatedAt: iso(d.updatedAt),
+    createdAt: isoTime(d.createdAt),
+    updatedAt: isoTime(d.updatedAt),
   };
 }
 

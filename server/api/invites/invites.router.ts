@@ -5,6 +5,7 @@ import { defineRoute, type RouteSpec } from '../../common/routes.js';
 import { toPublicUser } from '../users/users.mapper.js';
 import { acceptInvite, createInvite, findUsableInvite } from './invites.service.js';
 import type { RequestHandler } from 'express';
+import { publicBaseUrl } from '../../common/public-url.js';
 
 const tokenParams = z.strictObject({ token: inviteTokenSchema });
 
@@ -13,7 +14,7 @@ export function invitesRoutes({ dataSource, mailer, config }: AppDeps, limit: Re
     defineRoute({
       method: 'post', path: '', access: ['admin'], body: inviteCreateSchema,
       handler: async ({ body, user, req, res }) => {
-        const baseUrl = config.publicUrl ?? `${req.protocol}://${req.get('host')}`;
+        const baseUrl = publicBaseUrl(config, req);
         const invite = await createInvite(dataSource, mailer, user!, body, baseUrl);
         res.status(201).json({ invite: { id: invite.id, email: invite.email, role: invite.role, expiresAt: invite.expiresAt.toISOString() } });
       },

@@ -8,13 +8,14 @@ import { getRevision } from '../revisions/revisions.service.js';
 import { toRunView } from '../runs/runs.mapper.js';
 import { listRuns } from '../runs/runs.service.js';
 import { currentRunHash, marginInputsOf, requestMarginStudy, saveMarginInputs, type StoredMarginInputs } from './margin.service.js';
+import { isoTime } from '../../common/iso-time.js';
 
 /** The margin study is the lead's tool, and designers need it finished before they submit. */
 export const MARGIN_RUNNERS = ['designer', 'lead', 'admin'] as const;
 const noQuery = z.strictObject({});
 
 const inputsView = (s: StoredMarginInputs, editable: boolean) => ({
-  inputs: s.inputs, stored: s.stored, editable, updatedAt: s.updatedAt ? new Date(s.updatedAt).toISOString() : null, updatedById: s.updatedById,
+  inputs: s.inputs, stored: s.stored, editable, updatedAt: s.updatedAt ? isoTime(s.updatedAt) : null, updatedById: s.updatedById,
 });
 
 /** Margin inputs and margin studies of a revision (mounted under /api/revisions). */

@@ -11,8 +11,7 @@ import { REVIEW_ACTIONS } from '../reviews/reviews.service.js';
 import type { MarginStudyData } from '../margin/margin-study.js';
 import { HIGH_VOLTAGE_CAUTION } from './caution.js';
 import { chainStages } from './chain-rows.js';
-
-const iso = (d: Date | string | null | undefined) => (d ? new Date(d).toISOString() : null);
+import { isoTimeOrNull } from '../../common/iso-time.js';
 
 const ACTION_LABELS: Record<string, string> = {
   'revision.submit': 'Submitted for review',
@@ -23,7 +22,7 @@ const ACTION_LABELS: Record<string, string> = {
 
 function runHeader(run: AnalysisRun, current: boolean) {
   return {
-    runId: run.id, current, seed: run.seed, trials: run.trials, finishedAt: iso(run.finishedAt),
+    runId: run.id, current, seed: run.seed, trials: run.trials, finishedAt: isoTimeOrNull(run.finishedAt),
     requestedBy: run.requestedBy ? { id: run.requestedBy.id, displayName: run.requestedBy.displayName } : null,
   };
 }
@@ -84,7 +83,7 @@ export async function buildReport(dataSource: DataSource, revisionId: number, no
     revision: {
       id: revision.id, letter: revision.letter, state: revision.state, stateLabel: REVISION_STATE_LABELS[revision.state], note: revision.note,
       basedOnId: revision.basedOnId, createdBy: { id: revision.createdBy.id, displayName: revision.createdBy.displayName },
-      createdAt: iso(revision.createdAt), updatedAt: iso(revision.updatedAt),
+      createdAt: isoTimeOrNull(revision.createdAt), updatedAt: isoTimeOrNull(revision.updatedAt),
     },
     channels: revision.channels.map((c) => ({ key: c.key, name: c.definition.name, stages: chainStages(c.definition) })),
     uncertainty: uncertaintyRun ? uncertaintySection(uncertaintyRun, uncertaintyCurrent) : null,
@@ -94,7 +93,7 @@ export async function buildReport(dataSource: DataSource, revisionId: number, no
     /** The inputs as they are now (may differ from the study's when the study is not current). */
     marginInputs: stored.inputs as MarginInputs,
     signOff: events.map((e) => ({
-      at: iso(e.at),
+      at: isoTimeOrNull(e.at),
       action: e.action,
       label: ACTION_LABELS[e.action] ?? e.action,
       actor: { id: e.actorId, displayName: actors.find((a) => a.id === e.actorId)?.displayName ?? null },

@@ -5,11 +5,10 @@ import { defineRoute, type RouteSpec } from '../../common/routes.js';
 import { DESIGN_READERS, DESIGN_WRITERS } from '../designs/designs.router.js';
 import { toRevisionSummary } from '../designs/designs.mapper.js';
 import { decideReview, listReviews, reopenRevision, submitForReview } from './reviews.service.js';
+import { publicBaseUrl } from '../../common/public-url.js';
 
 export const REVIEWERS = ['lead', 'admin'] as const;
 
-const baseUrlOf = (config: AppDeps['config'], req: { protocol: string; get(name: string): string | undefined }) =>
-  config.publicUrl ?? `${req.protocol}://${req.get('host')}`;
 
 /** Review transitions of a revision (mounted under /api/revisions). */
 export function revisionReviewRoutes({ dataSource, mailer, config }: AppDeps): RouteSpec[] {
@@ -17,21 +16,21 @@ export function revisionReviewRoutes({ dataSource, mailer, config }: AppDeps): R
     defineRoute({
       method: 'post', path: '/:id/submit', access: DESIGN_WRITERS, params: idParamSchema,
       handler: async ({ params, user, req, res }) => {
-        const { revision, mail } = await submitForReview(dataSource, mailer, user!, params.id, baseUrlOf(config, req));
+        const { revision, mail } = await submitForReview(dataSource, mailer, user!, params.id, publicBaseUrl(config, req));
         res.json({ revision: toRevisionSummary(revision), mail });
       },
     }),
     defineRoute({
       method: 'post', path: '/:id/approve', access: REVIEWERS, params: idParamSchema, body: approveSchema,
       handler: async ({ params, body, user, req, res }) => {
-        const { revision, mail } = await decideReview(dataSource, mailer, user!, params.id, 'approve', body.comment, baseUrlOf(config, req));
+        const { revision, mail } = await decideReview(dataSource, mailer, user!, params.id, 'approve', body.comment, publicBaseUrl(config, req));
         res.json({ revision: toRevisionSummary(revision), mail });
       },
     }),
     defineRoute({
       method: 'post', path: '/:id/request-changes', access: REVIEWERS, params: idParamSchema, body: requestChangesSchema,
       handler: async ({ params, body, user, req, res }) => {
-        const { revision, mail } = await decideReview(dataSource, mailer, user!, params.id, 'request-changes', body.comment, baseUrlOf(config, req));
+        const { revision, mail } = await decideReview(dataSource, mailer, user!, params.id, 'request-changes', body.comment, publicBaseUrl(config, req));
         res.json({ revision: toRevisionSummary(revision), mail });
       },
     }),

@@ -11,6 +11,7 @@ import { User } from '../../entities/User.js';
 import { latestDoneRun, currentRunHash } from '../margin/margin.service.js';
 import { getRevision } from '../revisions/revisions.service.js';
 import { decisionMessage, submittedMessage } from './reviews.mail.js';
+import { isoTime } from '../../common/iso-time.js';
 
 /** Audit actions of the review workflow, oldest first in a revision's history. */
 export const REVIEW_ACTIONS = ['revision.submit', 'revision.approve', 'revision.request-changes', 'revision.reopen'] as const;
@@ -139,9 +140,9 @@ export async function listReviews(dataSource: DataSource, query: ReviewListQuery
     const result = margins[i]?.result as { verdict?: string; summary?: { pass: boolean }[] } | undefined;
     return {
       revision: r,
-      submittedAt: submit ? new Date(submit.at).toISOString() : null,
+      submittedAt: submit ? isoTime(submit.at) : null,
       submittedBy: submit ? { id: submit.actorId, displayName: nameOf(submit.actorId) } : null,
-      lastEvent: last ? { action: last.action, at: new Date(last.at).toISOString(), actor: { id: last.actorId, displayName: nameOf(last.actorId) } } : null,
+      lastEvent: last ? { action: last.action, at: isoTime(last.at), actor: { id: last.actorId, displayName: nameOf(last.actorId) } } : null,
       margin: margins[i] && result
         ? { runId: margins[i]!.id, verdict: result.verdict ?? null, failed: (result.summary ?? []).filter((c) => !c.pass).length }
         : null,

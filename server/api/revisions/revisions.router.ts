@@ -5,6 +5,7 @@ import { defineRoute, type RouteSpec } from '../../common/routes.js';
 import { DESIGN_READERS, DESIGN_WRITERS } from '../designs/designs.router.js';
 import { toRevisionDetail } from '../designs/designs.mapper.js';
 import { getRevision, replaceChannels, revisionHistory } from './revisions.service.js';
+import { isoTime } from '../../common/iso-time.js';
 
 export function revisionsRoutes({ dataSource }: AppDeps): RouteSpec[] {
   return [
@@ -22,7 +23,7 @@ export function revisionsRoutes({ dataSource }: AppDeps): RouteSpec[] {
       method: 'get', path: '/:id/history', access: DESIGN_READERS, params: idParamSchema,
       handler: async ({ params, res }) => {
         const events = await revisionHistory(dataSource, params.id);
-        res.json({ items: events.map((e) => ({ ...e, at: new Date(e.at).toISOString() })) });
+        res.json({ items: events.map((e) => ({ ...e, at: isoTime(e.at) })) });
       },
     }),
   ];

@@ -1,6 +1,5 @@
 import type { AnalysisRun } from '../../entities/AnalysisRun.js';
-
-const iso = (d: Date | string | null) => (d ? new Date(d).toISOString() : null);
+import { isoTimeOrNull } from '../../common/iso-time.js';
 
 export function toRunView(run: AnalysisRun, liveProgress?: number, currentHash?: string) {
   return {
@@ -16,9 +15,9 @@ export function toRunView(run: AnalysisRun, liveProgress?: number, currentHash?:
     /** Whether the run used the revision's content as it is now. */
     current: currentHash === undefined ? undefined : run.inputsHash === currentHash,
     requestedBy: run.requestedBy ? { id: run.requestedBy.id, displayName: run.requestedBy.displayName } : undefined,
-    createdAt: iso(run.createdAt),
-    startedAt: iso(run.startedAt),
-    finishedAt: iso(run.finishedAt),
+    createdAt: isoTimeOrNull(run.createdAt),
+    startedAt: isoTimeOrNull(run.startedAt),
+    finishedAt: isoTimeOrNull(run.finishedAt),
     durationMs: run.durationMs,
     result: run.result ?? undefined,
     inputs: run.inputs ?? undefined,

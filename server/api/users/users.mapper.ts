@@ -1,5 +1,6 @@
 import type { PublicUser } from '../../../shared/schemas/users.js';
 import type { User } from '../../entities/User.js';
+import { isoTime } from '../../common/iso-time.js';
 
 export function toPublicUser(user: User): PublicUser {
   return {
@@ -8,6 +9,6 @@ export function toPublicUser(user: User): PublicUser {
     displayName: user.displayName,
     role: user.role,
     active: user.active,
-    createdAt: new Date(user.createdAt).toISOString(),
+    createdAt: isoTime(user.createdAt),
   };
 }
