@@ -40,3 +40,17 @@ export function readCsv(bytes: Buffer): CsvTable {
   }));
   return { headers, rows, delimiter: parsed.meta.delimiter };
 }
+
+/**
+ * The rows an import may store. Any bad row refuses the whole file unless the person chose to import only
+ * the valid rows; a file with no valid row is refused either way.
+ */
+export function importableRows<T>(values: (T | null)[], onlyValid: boolean): T[] {
+  const invalid = values.filter((v) => v === null).length;
+  if (invalid > 0 && !onlyValid) {
+    throw new BadRequestError(`${invalid} row${invalid > 1 ? 's have' : ' has'} problems; nothing was imported. Fix the file, or import only the valid rows`);
+  }
+  const valid = values.filter((v): v is T => v !== null);
+  if (valid.length === 0) throw new BadRequestError('no valid rows to import');
+  return valid;
+}

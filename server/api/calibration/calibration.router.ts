@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import { csvMappingSchema, pointExclusionSchema, pointsReplaceSchema, sessionPatchSchema } from '../../../shared/schemas/calibration.js';
 import { idParamSchema } from '../../../shared/schemas/common.js';
-import { readCsv } from '../../common/csv.js';
+import { importableRows, readCsv } from '../../common/csv.js';
 import type { AppDeps } from '../../common/deps.js';
 import { BadRequestError, ConflictError } from '../../common/errors.js';
 import { defineRoute, type RouteSpec } from '../../common/routes.js';
@@ -92,11 +92,7 @@ export function calibrationRoutes({ dataSource, mailer, config }: AppDeps): Rout
           return;
         }
         if (!mapping) throw new BadRequestError('choose which column holds what before importing', { mapping: 'is required to import' });
-        if (preview.invalidCount > 0 && query.mode === 'all') {
-          throw new BadRequestError(`${preview.invalidCount} row${preview.invalidCount > 1 ? 's have' : ' has'} problems; nothing was imported`, undefined);
-        }
-        const points = preview.rows.flatMap((r) => (r.point ? [r.point] : []));
-        if (points.length === 0) throw new BadRequestError('no valid rows to import');
+        const points = importableRows(preview.rows.map((r) => r.point), query.mode === 'valid-only');
         await writePoints(dataSource, user!, params.id, points, 'append');
         res.status(201).json({ imported: points.length, skipped: preview.invalidCount, problems: preview.problems, session: await detail(params.id) });
       },

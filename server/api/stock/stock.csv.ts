@@ -1,6 +1,5 @@
 import Papa from 'papaparse';
-import { formatEng } from '../../../shared/units/index.js';
-import { parseEngineering } from '../../../shared/units/index.js';
+import { formatEng, parseEngineering } from '../../../shared/units/index.js';
 import { STOCK_CSV_COLUMNS, STOCK_CSV_REQUIRED, stockPartSchema, type StockPartBody } from '../../../shared/schemas/stock.js';
 import type { CsvTable } from '../../common/csv.js';
 import type { RowProblem } from '../../../shared/schemas/common.js';

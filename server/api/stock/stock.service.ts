@@ -3,6 +3,7 @@ import { Between } from 'typeorm';
 import type { StockPartBody } from '../../../shared/schemas/stock.js';
 import { parseEngineering } from '../../../shared/units/index.js';
 import { recordAudit } from '../../common/audit.js';
+import { importableRows } from '../../common/csv.js';
 import { BadRequestError, NotFoundError } from '../../common/errors.js';
 import { StockPart } from '../../entities/StockPart.js';
 import type { User } from '../../entities/User.js';
@@ -84,13 +85,7 @@ async function faultPause(): Promise<void> {
  * With `onlyValid` false, any bad row refuses the whole file and nothing is stored.
  */
 export async function importStock(dataSource: DataSource, actor: User, preview: StockPreview, onlyValid: boolean): Promise<number> {
-  if (preview.invalidCount > 0 && !onlyValid) {
-    throw new BadRequestError(
-      `${preview.invalidCount} row${preview.invalidCount > 1 ? 's have' : ' has'} problems; nothing was imported. Fix the file, or import only the valid rows`,
-    );
-  }
-  const parts = preview.rows.flatMap((r) => (r.part ? [r.part] : []));
-  if (parts.length === 0) throw new BadRequestError('no valid rows to import');
+  const parts = importableRows(preview.rows.map((r) => r.part), onlyValid);
   await dataSource.transaction(async (m) => {
     const repo = m.getRepository(StockPart);
     // Chunked inserts keep each statement under SQLite's variable limit.
