@@ -3,7 +3,7 @@ import fs from 'node:fs';
 import path from 'node:path';
 import session from 'express-session';
 import { TypeormStore } from 'connect-typeorm';
-import type { DataSource } from 'typeorm';
+import type { DataSource, Repository } from 'typeorm';
 import type { AppConfig } from '../config.js';
 import { SessionRecord } from '../entities/SessionRecord.js';
 
@@ -37,6 +37,25 @@ function throttleTouches(store: TypeormStore): void {
   };
 }
 
+/**
+ * The store's own read writes the current time into its SQL as a literal (TypeORM puts numeric parameters inline
+ * on SQLite), so each request prepared a fresh statement, evicted a cached one and left both for the old-space
+ * collector: the main cause of 20–50 ms collector pauses under steady load. Reading by id alone and checking the
+ * expiry here uses one prepared statement for every session read.
+ */
+function readByIdOnly(store: TypeormStore, sessions: Repository<SessionRecord>): void {
+  store.get = (sid, callback) => {
+    sessions
+      .findOne({ where: { id: sid } })
+      .then((record) => {
+        // bigint comes back as a number from SQLite and as a string from PostgreSQL.
+        if (!record || Number(record.expiredAt) <= Date.now()) return callback(null, null);
+        callback(null, JSON.parse(record.json));
+      })
+      .catch((err: unknown) => callback(err));
+  };
+}
+
 /** Sessions live in SQLite (table `sessions`); the cookie is httpOnly, SameSite=Lax, Secure whenever the request is HTTPS. */
 export function createSessionMiddleware(dataSource: DataSource, config: AppConfig) {
   const store = new TypeormStore({
@@ -45,6 +64,7 @@ export function createSessionMiddleware(dataSource: DataSource, config: AppConfi
     // Without this the store disconnects for good on the first error (e.g. a busy database).
     onError: (_store, err) => console.error('[session] store error:', err.message),
   }).connect(dataSource.getRepository(SessionRecord));
+  readByIdOnly(store, dataSource.getRepository(SessionRecord));
   throttleTouches(store);
   return session({
     name: SESSION_COOKIE,
