@@ -1,10 +1,17 @@
 import { computed, type Ref } from 'vue';
-import { nominalReadouts, type ChainWarning, type NominalReadouts } from '@shared/chain';
+import { compileChannel, nominalReadouts, type ChainWarning, type NominalReadouts } from '@shared/chain';
+import { channelWorstCase } from '@shared/propagation/channel-analytic';
 import type { ChannelDefinition } from '@shared/schemas/chain';
 import { capitalise } from '@/utils/formatQuantity';
 
 /** Chain stages as the editor names its sections; a warning's `where` starts with one of them. */
-export type Stage = 'rangeV' | 'divider' | 'converter' | 'isolator' | 'capture' | 'environment';
+export type Stage = 'rangeV' | 'divider' | 'converter' | 'isolator' | 'capture' | 'environment' | 'reconstruction';
+
+/** The largest worst-case reading error across the range, and the input voltage where it occurs. */
+export interface WorstCaseReadout {
+  maxAbsV: number;
+  atV: number;
+}
 
 /** Evaluation voltages the side panel lists across the range. */
 const GRID_POINTS = 5;
@@ -18,15 +25,20 @@ function stageOf(where: string): Stage {
  * engine refuses the inputs, `problem` says why and the last good readouts are not shown.
  */
 export function useChannelReadouts(channel: Ref<ChannelDefinition>) {
-  const outcome = computed<{ readouts: NominalReadouts | null; problem: string | null }>(() => {
+  const outcome = computed<{ readouts: NominalReadouts | null; worstCase: WorstCaseReadout | null; problem: string | null }>(() => {
     try {
-      return { readouts: nominalReadouts(channel.value, GRID_POINTS), problem: null };
+      const readouts = nominalReadouts(channel.value, GRID_POINTS);
+      // A few milliseconds at five voltages; values are committed on blur, not per keystroke.
+      const points = channelWorstCase(compileChannel(channel.value, GRID_POINTS));
+      const worst = points.reduce((a, b) => (b.maxAbs > a.maxAbs ? b : a));
+      return { readouts, worstCase: { maxAbsV: worst.maxAbs, atV: worst.voltageV }, problem: null };
     } catch (error) {
-      return { readouts: null, problem: capitalise((error as Error).message) };
+      return { readouts: null, worstCase: null, problem: capitalise((error as Error).message) };
     }
   });
 
   const readouts = computed(() => outcome.value.readouts);
+  const worstCase = computed(() => outcome.value.worstCase);
   const problem = computed(() => outcome.value.problem);
   const warnings = computed<ChainWarning[]>(() => readouts.value?.warnings ?? []);
 
@@ -40,7 +52,7 @@ export function useChannelReadouts(channel: Ref<ChannelDefinition>) {
     return warnings.value.some((warning) => warning.where === where);
   }
 
-  return { readouts, problem, warnings, warningsFor, resistorWarned };
+  return { readouts, worstCase, problem, warnings, warningsFor, resistorWarned };
 }
 
 export type ChannelReadouts = ReturnType<typeof useChannelReadouts>;

@@ -66,6 +66,19 @@ describe('a designer in the browser', () => {
     await expect.poll(() => reloaded.getByLabel('Bottom resistor resistance').inputValue()).toBe('33.2k');
     expect(await reloaded.getByLabel('Top resistor 1 rated voltage').inputValue()).toBe('100');
     await expect.poll(() => reloaded.locator('#readout-ratio').innerText()).toContain('0.008205');
+
+    // Per-board calibration removes the tolerance terms at the calibration temperature, so the worst case shrinks.
+    const volts = async () => Number((await reloaded.locator('#readout-worst-case').innerText()).match(/±([\d.]+) V/)![1]);
+    const nominalWorst = await volts();
+    await reloaded.getByRole('region', { name: 'Reading back' }).getByText('Each board calibrated').click();
+    await reloaded.getByLabel('Calibration temperature').fill('25');
+    await reloaded.getByLabel('Calibration temperature').press('Tab');
+    await expect.poll(() => reloaded.locator('#readout-worst-case').innerText()).toContain('calibrated');
+    expect(await volts()).toBeLessThan(nominalWorst / 2);
+    await page.getByRole('button', { name: 'Save', exact: true }).click();
+    await expect.poll(() => page.getByText('All changes saved').isVisible()).toBe(true);
+    await page.reload();
+    await expect.poll(() => page.getByRole('tabpanel', { name: 'Pack side' }).getByLabel('Calibration temperature').inputValue()).toBe('25');
   }, 90_000);
 
   it('previews a stock CSV and lists the problem in its bad row', async () => {
