@@ -56,6 +56,17 @@ describe('a tester in the browser', () => {
     await expect.poll(() => page.getByRole('heading', { name: 'Calibration session: PM-2-001, Pack side' }).isVisible()).toBe(true);
     expect(await page.getByText('certifies nothing').isVisible()).toBe(true);
 
+    // The bench was warmer than the default and that is worth a note: both can be corrected while the session is a draft.
+    await page.getByRole('button', { name: 'Edit details…' }).click();
+    const details = page.getByRole('dialog', { name: 'Session details' });
+    await details.getByLabel('Ambient temperature').fill('24.5');
+    await details.getByLabel('Note').fill('Lid off, fan running.');
+    await rig.screenshot('calibration-edit-details');
+    await details.getByRole('button', { name: 'Save details' }).click();
+    await expect.poll(() => details.isVisible()).toBe(false);
+    await expect.poll(() => page.getByText('24.5 °C').isVisible()).toBe(true);
+    expect(await page.getByText('Lid off, fan running.').isVisible()).toBe(true);
+
     await page.getByRole('button', { name: 'Upload CSV' }).click();
     const upload = page.getByRole('dialog', { name: 'Upload calibration points from a CSV file' });
     await upload.getByLabel('CSV file', { exact: true }).setInputFiles(csvFile);
