@@ -1,42 +1,11 @@
 import { http } from './http';
 import { queryString } from '@/utils/queryString';
-import type { DesignCreateBody, DesignPatchBody, RevisionState } from '@shared/schemas/designs';
-import type { RevisionDetail } from './revisions';
+import type { DesignDetail, DesignList, RevisionDetail } from '@shared/schemas/design-views';
+import type { DesignCreateBody, DesignPatchBody } from '@shared/schemas/designs';
 
 export { REVISION_STATE_LABELS, type RevisionState } from '@shared/schemas/designs';
 
-export interface PersonRef {
-  id: number;
-  displayName: string;
-}
-
-export interface RevisionRef {
-  id: number;
-  letter: string;
-  state: RevisionState;
-}
-
-export interface DesignRow {
-  id: number;
-  name: string;
-  purpose: string;
-  owner: PersonRef;
-  latestRevision: RevisionRef | null;
-  createdAt: string;
-  updatedAt: string;
-}
-
-export interface RevisionSummary extends RevisionRef {
-  note: string;
-  basedOnId: number | null;
-  createdBy?: PersonRef;
-  createdAt: string;
-  updatedAt: string;
-}
-
-export interface DesignDetail extends DesignRow {
-  revisions: RevisionSummary[];
-}
+export type { DesignDetail, DesignList, DesignRow, PersonRef, RevisionRef, RevisionSummary } from '@shared/schemas/design-views';
 
 export type DesignSort = 'name' | 'updatedAt' | 'createdAt';
 
@@ -47,12 +16,6 @@ export interface DesignListQuery {
   page: number;
   pageSize: number;
 }
-
-export interface DesignList {
-  items: DesignRow[];
-  total: number;
-}
-
 
 const path = (id: number) => `/api/designs/${encodeURIComponent(id)}`;
 

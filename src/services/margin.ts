@@ -1,21 +1,10 @@
 import { http } from './http';
-import type { MarginInputs, MarginInputsBody, MarginStudyRequest, MarginStudyResult } from '@shared/schemas/margin';
-import type { Run } from './runs';
+import type { MarginInputsBody, MarginStudyRequest } from '@shared/schemas/margin';
+import type { MarginInputsView, MarginRun } from '@shared/schemas/run-views';
 
 export type { MarginInputs, MarginInputsBody, MarginStudyResult } from '@shared/schemas/margin';
 
-export interface MarginInputsView {
-  inputs: MarginInputs;
-  /** False while the revision still uses the defaults. */
-  stored: boolean;
-  /** Only a draft's inputs may change. */
-  editable: boolean;
-  updatedAt: string | null;
-  updatedById: number | null;
-}
-
-/** A margin study run: the shared run fields with the margin result once done. */
-export type MarginRun = Omit<Run, 'result' | 'kind'> & { kind: 'margin'; result?: MarginStudyResult };
+export type { MarginInputsView, MarginRun } from '@shared/schemas/run-views';
 
 export type MarginStudyStart = Partial<MarginStudyRequest>;
 

@@ -1,27 +1,8 @@
 import { http } from './http';
 import type { ChannelDefinition } from '@shared/schemas/chain';
-import type { PersonRef, RevisionSummary } from './designs';
+import type { HistoryEvent, RevisionDetail } from '@shared/schemas/design-views';
 
-export interface RevisionChannel {
-  id: number;
-  key: string;
-  position: number;
-  definition: ChannelDefinition;
-}
-
-export interface RevisionDetail extends RevisionSummary {
-  design: { id: number; name: string; owner: PersonRef };
-  channels: RevisionChannel[];
-}
-
-export interface HistoryEvent {
-  id: number;
-  actorId: number | null;
-  action: string;
-  subject: string;
-  detail: unknown;
-  at: string;
-}
+export type { HistoryEvent, RevisionChannel, RevisionDetail } from '@shared/schemas/design-views';
 
 export interface ChannelsBody {
   channels: { key: string; definition: ChannelDefinition }[];

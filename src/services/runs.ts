@@ -1,34 +1,10 @@
 import { http } from './http';
-import type { ChannelStudy } from '@shared/propagation/channel-study';
+import type { Run } from '@shared/schemas/run-views';
 import type { RunState, UncertaintyStudyRequest } from '@shared/schemas/runs';
-import type { PersonRef } from './designs';
 
 export type { RunState } from '@shared/schemas/runs';
 
-/** What a finished uncertainty study holds: one engine study per channel. */
-export interface StudyResult {
-  channels: { key: string; name: string; study: ChannelStudy }[];
-}
-
-export interface Run {
-  id: number;
-  revisionId: number;
-  kind: 'uncertainty' | 'margin';
-  state: RunState;
-  progress: number;
-  seed: number;
-  trials: number | null;
-  adaptiveDigits: number | null;
-  error: string | null;
-  /** Whether the run used the revision's channels as they are now. */
-  current?: boolean;
-  requestedBy?: PersonRef;
-  createdAt: string | null;
-  startedAt: string | null;
-  finishedAt: string | null;
-  durationMs: number | null;
-  result?: StudyResult;
-}
+export type { Run, StudyResult } from '@shared/schemas/run-views';
 
 export type StudyRequest = Partial<UncertaintyStudyRequest>;
 

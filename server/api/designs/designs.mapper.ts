@@ -2,8 +2,9 @@ import type { Design } from '../../entities/Design.js';
 import type { Revision } from '../../entities/Revision.js';
 import { compareLetters } from './revision-letters.js';
 import { isoTime } from '../../common/iso-time.js';
+import type { DesignDetail, DesignRow, RevisionDetail, RevisionSummary } from '../../../shared/schemas/design-views.js';
 
-export function toRevisionSummary(r: Revision) {
+export function toRevisionSummary(r: Revision): RevisionSummary {
   return {
     id: r.id,
     letter: r.letter,
@@ -16,7 +17,7 @@ export function toRevisionSummary(r: Revision) {
   };
 }
 
-export function toDesignRow(d: Design) {
+export function toDesignRow(d: Design): DesignRow {
   const latest = [...(d.revisions ?? [])].sort((a, b) => compareLetters(a.letter, b.letter)).at(-1);
   return {
     id: d.id,
@@ -29,11 +30,11 @@ export function toDesignRow(d: Design) {
   };
 }
 
-export function toDesignDetail(d: Design) {
+export function toDesignDetail(d: Design): DesignDetail {
   return { ...toDesignRow(d), revisions: d.revisions.map(toRevisionSummary) };
 }
 
-export function toRevisionDetail(r: Revision) {
+export function toRevisionDetail(r: Revision): RevisionDetail {
   return {
     ...toRevisionSummary(r),
     design: { id: r.design.id, name: r.design.name, owner: { id: r.design.owner.id, displayName: r.design.owner.displayName } },

@@ -9,12 +9,13 @@ import { toRunView } from '../runs/runs.mapper.js';
 import { listRuns } from '../runs/runs.service.js';
 import { currentRunHash, marginInputsOf, requestMarginStudy, saveMarginInputs, type StoredMarginInputs } from './margin.service.js';
 import { isoTime } from '../../common/iso-time.js';
+import type { MarginInputsView } from '../../../shared/schemas/run-views.js';
 
 /** The margin study is the lead's tool, and designers need it finished before they submit. */
 export const MARGIN_RUNNERS = ['designer', 'lead', 'admin'] as const;
 const noQuery = z.strictObject({});
 
-const inputsView = (s: StoredMarginInputs, editable: boolean) => ({
+const inputsView = (s: StoredMarginInputs, editable: boolean): MarginInputsView => ({
   inputs: s.inputs, stored: s.stored, editable, updatedAt: s.updatedAt ? isoTime(s.updatedAt) : null, updatedById: s.updatedById,
 });
 

@@ -6,6 +6,7 @@ import { DESIGN_READERS, DESIGN_WRITERS } from '../designs/designs.router.js';
 import { toRevisionDetail } from '../designs/designs.mapper.js';
 import { getRevision, replaceChannels, revisionHistory } from './revisions.service.js';
 import { isoTime } from '../../common/iso-time.js';
+import type { HistoryEvent } from '../../../shared/schemas/design-views.js';
 
 export function revisionsRoutes({ dataSource }: AppDeps): RouteSpec[] {
   return [
@@ -23,7 +24,8 @@ export function revisionsRoutes({ dataSource }: AppDeps): RouteSpec[] {
       method: 'get', path: '/:id/history', access: DESIGN_READERS, params: idParamSchema,
       handler: async ({ params, res }) => {
         const events = await revisionHistory(dataSource, params.id);
-        res.json({ items: events.map((e) => ({ ...e, at: isoTime(e.at) })) });
+        const items: HistoryEvent[] = events.map((e) => ({ ...e, at: isoTime(e.at) }));
+        res.json({ items });
       },
     }),
   ];

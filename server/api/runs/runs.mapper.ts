@@ -1,7 +1,8 @@
 import type { AnalysisRun } from '../../entities/AnalysisRun.js';
 import { isoTimeOrNull } from '../../common/iso-time.js';
+import type { RunView } from '../../../shared/schemas/run-views.js';
 
-export function toRunView(run: AnalysisRun, liveProgress?: number, currentHash?: string) {
+export function toRunView(run: AnalysisRun, liveProgress?: number, currentHash?: string): RunView {
   return {
     id: run.id,
     revisionId: run.revisionId,
@@ -12,7 +13,6 @@ export function toRunView(run: AnalysisRun, liveProgress?: number, currentHash?:
     trials: run.trials,
     adaptiveDigits: run.adaptiveDigits,
     error: run.error,
-    /** Whether the run used the revision's content as it is now. */
     current: currentHash === undefined ? undefined : run.inputsHash === currentHash,
     requestedBy: run.requestedBy ? { id: run.requestedBy.id, displayName: run.requestedBy.displayName } : undefined,
     createdAt: isoTimeOrNull(run.createdAt),
