@@ -1,5 +1,6 @@
 import type { CalibrationPointBody, CsvMapping, FitSettings } from './calibration.js';
 import type { RowProblem } from './common.js';
+import type { ReadingUncertainty } from '../fit/reading-uncertainty.js';
 
 export type { RowProblem };
 
@@ -20,6 +21,8 @@ export interface FitView {
   band: { appliedV: number; fittedHz: number; confidenceLowHz: number; confidenceHighHz: number; predictionLowHz: number; predictionHighHz: number }[];
   /** The firmware's form, volts = Σ c_k·f^k: exact for degree 1, a least-squares inverse for 2–3. */
   inverse: { coefficients: number[]; exact: boolean; maxInverseErrorV: number };
+  /** Uncertainty of a voltage read back through this fit (fit and a new reading's scatter, and the reference), 95 %. */
+  readingUncertainty: ReadingUncertainty[];
   rangeV: { min: number; max: number };
   rangeHz: { min: number; max: number };
 }

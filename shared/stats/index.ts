@@ -3,3 +3,5 @@ export { studentTCdf, studentTDensity, studentTUpperTail } from './student-t-dis
 export { mean, sampleVariance, sampleStandardDeviation } from './descriptive.js';
 export { sortedQuantile, symmetricCoverageInterval, shortestCoverageInterval } from './sorted-quantile.js';
 export type { CoverageInterval } from './sorted-quantile.js';
+export { effectiveDegreesOfFreedom } from './welch-satterthwaite.js';
+export type { UncertaintyContribution } from './welch-satterthwaite.js';

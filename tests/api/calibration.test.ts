@@ -187,6 +187,23 @@ describe('bench calibration', () => {
     expect((await tester.put(`/api/calibrations/${id}/points`).send({ points: rows })).status).toBe(409);
   });
 
+  it('states the uncertainty of a read-back voltage with the reference instrument in it, and exports it', async () => {
+    const id = await newSession({ degree: 1, intercept: true, weighted: false });
+    const rows = [0, 125, 250, 375, 500].map((v, i) => ({ appliedV: v, frequencyHz: 512.5 + 80.41 * v + [0.2, -0.1, 0.3, -0.2, 0.1][i] }));
+    const fit = (await tester.put(`/api/calibrations/${id}/points`).send({ points: rows })).body.session.analysis.fit;
+    const { percentOfReading, plusVolts } = SESSION.reference;
+    expect(fit.readingUncertainty.map((u: { appliedV: number }) => u.appliedV)).toEqual([0, 125, 250, 375, 500]);
+    const top = fit.readingUncertainty[4];
+    // the reference's limit ±(% of reading + volts) read as rectangular: u = a/√3 (JCGM 100 4.3.7)
+    expect(top.referenceV).toBeCloseTo(((percentOfReading / 100) * 500 + plusVolts) / Math.sqrt(3), 12);
+    expect(top.combinedV).toBeCloseTo(Math.hypot(top.fitV, top.referenceV), 12);
+    expect(top.expandedV).toBeCloseTo(top.coverageFactor * top.combinedV, 12);
+    const json = (await tester.get(`/api/calibrations/${id}/export.json`)).body;
+    expect(json.readingUncertainty.points[4].expandedV).toBeCloseTo(top.expandedV, 12);
+    const header = (await tester.get(`/api/calibrations/${id}/export.h`)).text;
+    expect(header).toContain(`+-${top.expandedV.toPrecision(2)} V at 500.0 V`);
+  });
+
   it('exports a C header that compiles with cc and prints the fitted coefficients', async () => {
     const id = await newSession();
     const rows = [0, 125, 250, 375, 500].map((v, i) => ({ appliedV: v, frequencyHz: 512.5 + 80.41 * v + [0.2, -0.1, 0.3, -0.2, 0.1][i] }));

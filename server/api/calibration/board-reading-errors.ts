@@ -13,7 +13,9 @@ const SEED = 62;
 /**
  * The reading errors of one built board, per channel, from its latest completed calibrations: the chain
  * read with that board's own line (calibrated at the bench temperature), so what remains is drift,
- * nonlinearity, quantisation and the calibration's own uncertainty (coefficient standard errors, k = 2).
+ * nonlinearity, quantisation and the calibration's own uncertainty: the coefficient standard errors and the
+ * reference instrument, whose error every point shares and the line therefore keeps (its % of reading in the
+ * gain, its volts in the offset), combined in quadrature and stated at k = 2.
  */
 export async function boardReadingErrors(dataSource: DataSource, boardId: number): Promise<BoardReadingErrors> {
   const board = await getBoard(dataSource, boardId);
@@ -24,14 +26,16 @@ export async function boardReadingErrors(dataSource: DataSource, boardId: number
     if (channels[summary.channelKey]) continue; // newest first: keep the latest per channel
     const session = await getSession(dataSource, summary.id);
     const definition = await sessionChannel(dataSource, session);
-    const fit = fitSession({ ...session.fit, degree: 1 }, session.points);
+    const fit = fitSession({ ...session.fit, degree: 1 }, session.points, session.reference);
     const b1 = fit.coefficients[1];
+    const ref = session.reference;
+    const divisor = ref.coverageFactor === 0 ? Math.sqrt(3) : ref.coverageFactor;
     const calibrated: ChannelDefinition = {
       ...definition,
       reconstruction: {
         mode: 'calibrated', temperatureC: session.ambientC, coverageFactor: 2,
-        gainUncertaintyFraction: (2 * fit.standardErrors[1]) / Math.abs(b1),
-        offsetUncertaintyV: (2 * fit.standardErrors[0]) / Math.abs(b1),
+        gainUncertaintyFraction: 2 * Math.hypot(fit.standardErrors[1] / Math.abs(b1), ref.percentOfReading / 100 / divisor),
+        offsetUncertaintyV: 2 * Math.hypot(fit.standardErrors[0] / Math.abs(b1), ref.plusVolts / divisor),
       },
     };
     channels[summary.channelKey] = readingErrorSamples(calibrated, { seed: SEED, trials: TRIALS });

@@ -30,6 +30,9 @@ export function scaledInteger(value: number): { q: number; shift: number } {
 
 const safeComment = (s: string) => s.replace(/\*\//g, '* /').replace(/[\r\n]+/g, ' ');
 
+const uncertaintyLine = (fit: FitView) =>
+  fit.readingUncertainty.map((u) => `+-${u.expandedV.toPrecision(2)} V at ${u.appliedV.toPrecision(4)} V`).join(', ');
+
 /**
  * A C header for the firmware: volts = Σ c_k·f^k with f in hertz, as `static const float` and as scaled
  * 32-bit integers (c_k = q_k / 2^shift_k), with the valid input range. Everything is prefixed by the channel
@@ -49,6 +52,7 @@ export function cHeader(ctx: ExportContext, fit: FitView): string {
  * ${fit.inverse.exact ? 'Exact inverse of the fitted straight line.' : `Least-squares inverse of the degree ${fit.settings.degree} fit; its largest departure is ${fit.inverse.maxInverseErrorV.toExponential(2)} V.`}
  * Fixed point: coefficient k = ${lower}_coeff_q[k] / 2^${lower}_coeff_shift[k].
  * Valid input: ${fit.rangeV.min} V to ${fit.rangeV.max} V (${fit.rangeHz.min.toPrecision(6)} Hz to ${fit.rangeHz.max.toPrecision(6)} Hz); outside it the fit is extrapolated.
+ * Expanded uncertainty (95 %) of one reading, fit and reference, before drift: ${uncertaintyLine(fit)}.
  */
 #ifndef ${guard}
 #define ${guard}
@@ -101,5 +105,12 @@ export function jsonExport(ctx: ExportContext, fit: FitView) {
       pointsUsed: fit.pointsUsed,
     },
     validRange: { volts: fit.rangeV, hertz: fit.rangeHz },
+    readingUncertainty: {
+      form: 'one reading read back with these coefficients: standard uncertainties in volts, expanded at 95 %',
+      points: fit.readingUncertainty.map((u) => ({
+        appliedV: u.appliedV, fitV: u.fitV, referenceV: u.referenceV, combinedV: u.combinedV,
+        degreesOfFreedom: Number.isFinite(u.degreesOfFreedom) ? u.degreesOfFreedom : null, coverageFactor: u.coverageFactor, expandedV: u.expandedV,
+      })),
+    },
   };
 }

@@ -1,4 +1,6 @@
-import { fitPolynomial, inverseLine, predictInterval, fitInversePolynomial, predictValue, type PolynomialFit } from '../../../shared/fit/index.js';
+import {
+  fitPolynomial, inverseLine, predictInterval, fitInversePolynomial, predictValue, readingUncertainty, type PolynomialFit, type ReferenceAccuracy,
+} from '../../../shared/fit/index.js';
 import type { FitSettings } from '../../../shared/schemas/calibration.js';
 import type { FitView } from '../../../shared/schemas/calibration-views.js';
 
@@ -10,17 +12,23 @@ export const SUSPECT_LIMIT = 3;
 
 const BAND_POINTS = 25;
 
-/** Least-squares fit of frequency on applied voltage over the points not excluded (weights 1/u² when all have u). */
-export function fitSession(settings: FitSettings, points: readonly CalibrationPoint[]): FitView {
+/** Voltages across the fitted range at which the reading uncertainty is reported: the ends and the quarters. */
+const UNCERTAINTY_POINTS = 5;
+
+/**
+ * Least-squares fit of frequency on applied voltage over the points not excluded (weights 1/u² when all have u),
+ * with the uncertainty of a voltage read back through it given the session's reference instrument.
+ */
+export function fitSession(settings: FitSettings, points: readonly CalibrationPoint[], reference: ReferenceAccuracy): FitView {
   const used = points.filter((p) => !p.excluded);
   const x = used.map((p) => p.appliedV);
   const y = used.map((p) => p.frequencyHz);
   const weighted = settings.weighted && used.length > 0 && used.every((p) => p.uncertaintyHz !== null);
-  const fit = fitPolynomial(x, y, {
-    degree: settings.degree,
-    intercept: settings.intercept,
-    weights: weighted ? used.map((p) => 1 / (p.uncertaintyHz as number) ** 2) : undefined,
-  });
+  const weights = weighted ? used.map((p) => 1 / (p.uncertaintyHz as number) ** 2) : undefined;
+  const fit = fitPolynomial(x, y, { degree: settings.degree, intercept: settings.intercept, weights });
+  // A new reading is taken to be as good as a typical bench point.
+  const newReadingWeight = weights ? weights.reduce((a, b) => a + b, 0) / weights.length : 1;
+  const voltages = Array.from({ length: UNCERTAINTY_POINTS }, (_, i) => fit.xMin + ((fit.xMax - fit.xMin) * i) / (UNCERTAINTY_POINTS - 1));
   const byId = new Map(used.map((p, i) => [p.id, i]));
   const view: FitView = {
     settings: { ...settings, weighted },
@@ -38,6 +46,7 @@ export function fitSession(settings: FitSettings, points: readonly CalibrationPo
     }),
     band: bandOf(fit),
     inverse: inverseOf(fit),
+    readingUncertainty: readingUncertainty(fit, reference, voltages, 0.95, newReadingWeight),
     rangeV: { min: fit.xMin, max: fit.xMax },
     rangeHz: { min: Math.min(predictValue(fit, fit.xMin), predictValue(fit, fit.xMax)), max: Math.max(predictValue(fit, fit.xMin), predictValue(fit, fit.xMax)) },
   };

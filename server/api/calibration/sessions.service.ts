@@ -103,7 +103,7 @@ export async function analyseSession(dataSource: DataSource, session: Calibratio
   }
   const channel = await sessionChannel(dataSource, session);
   try {
-    const fit = fitSession(session.fit, session.points);
+    const fit = fitSession(session.fit, session.points, session.reference);
     const comparison = compareBoard(channel, session.ambientC, session.points);
     return { fit, comparison, reason: null };
   } catch (err) {
