@@ -1,4 +1,5 @@
 import type { ChannelStudy } from '../propagation/channel-study.js';
+import type { ChannelDefinition } from './chain.js';
 import type { PersonRef } from './design-views.js';
 import type { MarginInputs, MarginStudyResult } from './margin.js';
 import type { RunState } from './runs.js';
@@ -32,8 +33,15 @@ export interface RunView<Result = unknown> {
   inputs?: unknown;
 }
 
+/** What an uncertainty study was asked to compute: the revision's channels as they were, and its settings. */
+export interface UncertaintyRunInputs {
+  channels: { key: string; definition: ChannelDefinition }[];
+  coverageProbability: number;
+  gridPoints: number;
+}
+
 /** An uncertainty study run. */
-export type Run = RunView<StudyResult>;
+export type Run = Omit<RunView<StudyResult>, 'inputs'> & { inputs?: UncertaintyRunInputs };
 
 /** A margin study run: the shared run fields with the margin result once done. */
 export type MarginRun = Omit<RunView<MarginStudyResult>, 'kind'> & { kind: 'margin' };

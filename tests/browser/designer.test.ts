@@ -132,6 +132,8 @@ describe('a designer in the browser', () => {
     const budget = page.getByRole('table', { name: /^Uncertainty budget at 500 V/ });
     await expect.poll(() => budget.locator('tbody tr').count()).toBeGreaterThan(3);
     expect(await page.getByText('Seed 1234').first().isVisible()).toBe(true);
+    // The first test switched the pack side to per-board calibration; the result says how it was read back.
+    expect(await page.getByText(/Read back with each board's own two-point calibration \(0 V and 500 V at 25 °C\)/).isVisible()).toBe(true);
     await rig.screenshot('designer-study');
   }, 120_000);
 });

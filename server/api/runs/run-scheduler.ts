@@ -5,6 +5,7 @@ import { HttpError } from '../../common/errors.js';
 import { AnalysisRun } from '../../entities/AnalysisRun.js';
 import type { StudyPool } from '../../workers/study-pool.js';
 import type { MarginStudyData } from '../margin/margin-study.js';
+import type { UncertaintyRunInputs } from '../../../shared/schemas/run-views.js';
 
 /** Studies one person may have waiting or running at once. */
 export const PER_USER_LIMIT = 2;
@@ -12,11 +13,7 @@ export const PER_USER_LIMIT = 2;
 const CONCURRENT_RUNS = 2;
 const PROGRESS_WRITE_MS = 1000;
 
-export interface UncertaintyRunInputs {
-  channels: { key: string; definition: ChannelDefinition }[];
-  coverageProbability: number;
-  gridPoints: number;
-}
+export type { UncertaintyRunInputs };
 
 interface ActiveRun {
   controller: AbortController;
