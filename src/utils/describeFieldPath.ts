@@ -5,7 +5,7 @@ const STAGES: Record<string, string> = {
   isolator: 'Isolator',
   capture: 'Timer capture',
   environment: 'Environment',
-  reconstruction: 'Reconstruction',
+  reconstruction: 'Reading back',
   name: 'Channel name',
 };
 

@@ -76,10 +76,10 @@ export function chainStages(c: ChannelDefinition): ChainStage[] {
   });
   const rec = c.reconstruction;
   stages.push({
-    stage: 'Reconstruction',
+    stage: 'Reading back',
     rows: rec.mode === 'nominal'
-      ? rows(row('mode', 'nominal coefficients'))
-      : rows(row('mode', 'two-point calibration'), row('calibration temperature', rec.temperatureC, '°C'),
+      ? rows(row('coefficients', 'design values'))
+      : rows(row('coefficients', 'each board calibrated (two points)'), row('calibration temperature', rec.temperatureC, '°C'),
         rec.pointsV ? row('calibration points', `${formatEng(rec.pointsV[0], 'V')} and ${formatEng(rec.pointsV[1], 'V')}`) : null,
         row('gain uncertainty', rec.gainUncertaintyFraction * 100, '%'), row('offset uncertainty', rec.offsetUncertaintyV, 'V'),
         row('coverage factor', rec.coverageFactor)),
