@@ -45,10 +45,13 @@ export interface DesignPopulation {
 
 export interface BoardComparison {
   population: DesignPopulation;
-  board: { gainError: number; offsetErrorV: number };
+  /** The board's gain error (fraction) and offset error (V), with their expanded uncertainties at coverageFactor. */
+  board: { gainError: number; offsetErrorV: number; gainErrorExpanded: number; offsetErrorExpandedV: number; coverageFactor: number };
   gainWithin: boolean;
   offsetWithin: boolean;
   within: boolean;
+  /** The board's own uncertainty interval reaches across a limit of the design's interval. */
+  undecided: boolean;
   likelyCauses: string[];
 }
 

@@ -204,6 +204,23 @@ describe('bench calibration', () => {
     expect(header).toContain(`+-${top.expandedV.toPrecision(2)} V at 500.0 V`);
   });
 
+  it('gives the board\'s gain and offset errors an uncertainty with the reference in it, and says when it blurs the verdict', async () => {
+    const res = await tester.post(`/api/boards/${boardId}/sessions`).send({
+      ...SESSION, reference: { description: 'a coarse handheld meter', percentOfReading: 1, plusVolts: 1 }, fit: { degree: 1, intercept: true, weighted: false },
+    });
+    const id = res.body.session.id;
+    const rows = [0, 125, 250, 375, 500].map((v, i) => ({ appliedV: v, frequencyHz: 512.5 + 80.41 * v + [0.2, -0.1, 0.3, -0.2, 0.1][i] }));
+    const { comparison } = (await tester.put(`/api/calibrations/${id}/points`).send({ points: rows })).body.session.analysis;
+    // A 1 % + 1 V limit read as rectangular (JCGM 100 4.3.7) swamps the fit's own standard errors: U ≈ 2·a/√3.
+    expect(comparison.board.coverageFactor).toBe(2);
+    expect(comparison.board.gainErrorExpanded).toBeCloseTo((2 * 0.01) / Math.sqrt(3), 4);
+    expect(comparison.board.offsetErrorExpandedV).toBeCloseTo(2 / Math.sqrt(3), 2);
+    expect(comparison.board.offsetErrorExpandedV).toBeGreaterThan(2 / Math.sqrt(3));
+    // ±1.15 V around the board's offset is wider than the design's whole offset interval, so no verdict is safe.
+    expect(comparison.population.offsetErrorV.high - comparison.population.offsetErrorV.low).toBeLessThan(2 * comparison.board.offsetErrorExpandedV);
+    expect(comparison.undecided).toBe(true);
+  });
+
   it('exports a C header that compiles with cc and prints the fitted coefficients', async () => {
     const id = await newSession();
     const rows = [0, 125, 250, 375, 500].map((v, i) => ({ appliedV: v, frequencyHz: 512.5 + 80.41 * v + [0.2, -0.1, 0.3, -0.2, 0.1][i] }));

@@ -23,7 +23,7 @@ export async function calibrationOverview(dataSource: DataSource, revisionId: nu
       continue;
     }
     const session = await getSession(dataSource, latest.id);
-    const c = compareBoard(channel.definition, session.ambientC, session.points);
+    const c = compareBoard(channel.definition, session.ambientC, session.points, session.reference);
     rows.push({ boardId: board.id, serialNumber: board.serialNumber, sessionId: session.id, gainError: c.board.gainError, offsetErrorV: c.board.offsetErrorV, within: c.within });
   }
   return { channelKey, channelName: channel.definition.name, population: designPopulation(channel.definition, channel.definition.environment.referenceC), boards: rows };

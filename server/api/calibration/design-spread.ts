@@ -1,7 +1,7 @@
 import { dividerNominal, nominalFrequencyHz } from '../../../shared/chain/index.js';
 import { readingErrorSamples } from '../../../shared/precharge/index.js';
 import { histogramOf } from '../../../shared/propagation/index.js';
-import { fitPolynomial } from '../../../shared/fit/index.js';
+import { fitPolynomial, type ReferenceAccuracy } from '../../../shared/fit/index.js';
 import type { ChannelDefinition } from '../../../shared/schemas/chain.js';
 import type { BoardComparison, DesignPopulation, Spread } from '../../../shared/schemas/calibration-views.js';
 import type { CalibrationPoint } from '../../entities/CalibrationPoint.js';
@@ -41,21 +41,43 @@ export function designPopulation(channel: ChannelDefinition, ambientC: number): 
   return population;
 }
 
+/** Coverage factor of the board's own gain and offset uncertainty beside the design interval. */
+const BOARD_K = 2;
+
 /**
  * Where a board's own calibration falls against its design's population. The board's straight-line fit
- * f = b0 + b1·V read with the design's nominal constants gives g = b1/G − 1 and o = (b0 − f0)/G.
+ * f = b0 + b1·V read with the design's nominal constants gives g = b1/G − 1 and o = (b0 − f0)/G. Their
+ * uncertainty combines the fit's standard errors with the reference instrument, whose error every point
+ * shares (its % of reading moves g, its volts move o); the verdict itself compares the estimates.
  */
-export function compareBoard(channel: ChannelDefinition, ambientC: number, points: readonly CalibrationPoint[]): BoardComparison {
+export function compareBoard(
+  channel: ChannelDefinition, ambientC: number, points: readonly CalibrationPoint[], reference: ReferenceAccuracy,
+): BoardComparison {
   const used = points.filter((p) => !p.excluded);
   const line = fitPolynomial(used.map((p) => p.appliedV), used.map((p) => p.frequencyHz), { degree: 1 });
   const ratio = dividerNominal(channel.divider, channel.converter.inputResistanceOhm).ratio;
   const f0 = nominalFrequencyHz(channel.converter, ratio, 0);
   const gainHzPerV = nominalFrequencyHz(channel.converter, ratio, 1) - f0;
-  const board = { gainError: line.coefficients[1] / gainHzPerV - 1, offsetErrorV: (line.coefficients[0] - f0) / gainHzPerV };
+  const divisor = reference.coverageFactor === 0 ? Math.sqrt(3) : reference.coverageFactor;
+  const board = {
+    gainError: line.coefficients[1] / gainHzPerV - 1,
+    offsetErrorV: (line.coefficients[0] - f0) / gainHzPerV,
+    gainErrorExpanded: BOARD_K * Math.hypot(line.standardErrors[1] / gainHzPerV, reference.percentOfReading / 100 / divisor),
+    offsetErrorExpandedV: BOARD_K * Math.hypot(line.standardErrors[0] / gainHzPerV, reference.plusVolts / divisor),
+    coverageFactor: BOARD_K,
+  };
   const population = designPopulation(channel, ambientC);
-  const gainWithin = board.gainError >= population.gainError.low && board.gainError <= population.gainError.high;
-  const offsetWithin = board.offsetErrorV >= population.offsetErrorV.low && board.offsetErrorV <= population.offsetErrorV.high;
-  return { population, board, gainWithin, offsetWithin, within: gainWithin && offsetWithin, likelyCauses: likelyCauses(board, population, gainWithin, offsetWithin) };
+  const inside = (v: number, s: Spread) => v >= s.low && v <= s.high;
+  const gainWithin = inside(board.gainError, population.gainError);
+  const offsetWithin = inside(board.offsetErrorV, population.offsetErrorV);
+  // Undecided when the board's own interval reaches across a limit of the design's interval.
+  const straddles = (v: number, u: number, s: Spread) => inside(v - u, s) !== inside(v + u, s) || (v - u < s.low && v + u > s.high);
+  const undecided = straddles(board.gainError, board.gainErrorExpanded, population.gainError)
+    || straddles(board.offsetErrorV, board.offsetErrorExpandedV, population.offsetErrorV);
+  return {
+    population, board, gainWithin, offsetWithin, within: gainWithin && offsetWithin, undecided,
+    likelyCauses: likelyCauses(board, population, gainWithin, offsetWithin),
+  };
 }
 
 function likelyCauses(board: BoardComparison['board'], population: DesignPopulation, gainWithin: boolean, offsetWithin: boolean): string[] {

@@ -104,7 +104,7 @@ export async function analyseSession(dataSource: DataSource, session: Calibratio
   const channel = await sessionChannel(dataSource, session);
   try {
     const fit = fitSession(session.fit, session.points, session.reference);
-    const comparison = compareBoard(channel, session.ambientC, session.points);
+    const comparison = compareBoard(channel, session.ambientC, session.points, session.reference);
     return { fit, comparison, reason: null };
   } catch (err) {
     return { fit: null, comparison: null, reason: (err as Error).message };
