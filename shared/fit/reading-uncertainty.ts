@@ -22,6 +22,11 @@ export interface ReferenceAccuracy {
   coverageFactor: number;
 }
 
+/** What a reference bound is divided by to give a standard uncertainty: √3 for a limit (JCGM 100 4.3.7), else its k. */
+export function referenceDivisor(reference: ReferenceAccuracy): number {
+  return reference.coverageFactor === 0 ? Math.sqrt(3) : reference.coverageFactor;
+}
+
 /** Standard uncertainties in volts at one applied voltage, and the expanded result. */
 export interface ReadingUncertainty {
   appliedV: number;
@@ -60,7 +65,7 @@ export function readingUncertainty(
   if (fit.residualDegreesOfFreedom < 1) throw new Error('the fit needs at least one residual degree of freedom');
   if (!(reference.percentOfReading >= 0 && reference.plusVolts >= 0)) throw new Error('reference accuracy must be ≥ 0');
   if (!(reference.coverageFactor === 0 || reference.coverageFactor > 0)) throw new Error('reference coverage factor must be 0 or > 0');
-  const divisor = reference.coverageFactor === 0 ? Math.sqrt(3) : reference.coverageFactor;
+  const divisor = referenceDivisor(reference);
   return voltages.map((appliedV) => {
     const slope = slopeAt(fit, appliedV);
     if (!(Math.abs(slope) > 0)) throw new Error(`the fitted curve is flat at ${appliedV} V, so a reading there cannot be turned back into volts`);

@@ -6,6 +6,7 @@ import { getBoard, sessionsOfBoards } from '../boards/boards.service.js';
 import type { BoardReadingErrors } from '../margin/board-errors.js';
 import { getSession, sessionChannel } from './sessions.service.js';
 import { fitSession } from './session-fit.js';
+import { referenceDivisor } from '../../../shared/fit/index.js';
 
 const TRIALS = 20_000;
 const SEED = 62;
@@ -29,7 +30,7 @@ export async function boardReadingErrors(dataSource: DataSource, boardId: number
     const fit = fitSession({ ...session.fit, degree: 1 }, session.points, session.reference);
     const b1 = fit.coefficients[1];
     const ref = session.reference;
-    const divisor = ref.coverageFactor === 0 ? Math.sqrt(3) : ref.coverageFactor;
+    const divisor = referenceDivisor(ref);
     const calibrated: ChannelDefinition = {
       ...definition,
       reconstruction: {

@@ -1,7 +1,7 @@
 import { dividerNominal, nominalFrequencyHz } from '../../../shared/chain/index.js';
 import { readingErrorSamples } from '../../../shared/precharge/index.js';
 import { histogramOf } from '../../../shared/propagation/index.js';
-import { fitPolynomial, type ReferenceAccuracy } from '../../../shared/fit/index.js';
+import { fitPolynomial, referenceDivisor, type ReferenceAccuracy } from '../../../shared/fit/index.js';
 import type { ChannelDefinition } from '../../../shared/schemas/chain.js';
 import type { BoardComparison, DesignPopulation, Spread } from '../../../shared/schemas/calibration-views.js';
 import type { CalibrationPoint } from '../../entities/CalibrationPoint.js';
@@ -58,7 +58,7 @@ export function compareBoard(
   const ratio = dividerNominal(channel.divider, channel.converter.inputResistanceOhm).ratio;
   const f0 = nominalFrequencyHz(channel.converter, ratio, 0);
   const gainHzPerV = nominalFrequencyHz(channel.converter, ratio, 1) - f0;
-  const divisor = reference.coverageFactor === 0 ? Math.sqrt(3) : reference.coverageFactor;
+  const divisor = referenceDivisor(reference);
   const board = {
     gainError: line.coefficients[1] / gainHzPerV - 1,
     offsetErrorV: (line.coefficients[0] - f0) / gainHzPerV,
