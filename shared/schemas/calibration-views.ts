@@ -1,4 +1,5 @@
-import type { CalibrationPointBody, CsvMapping, FitSettings } from './calibration.js';
+import type { CalibrationPointBody, CalibrationState, CsvMapping, FitSettings, ReferenceSpec } from './calibration.js';
+import type { PersonRef } from './design-views.js';
 import type { RowProblem } from './common.js';
 import type { ReadingUncertainty } from '../fit/reading-uncertainty.js';
 
@@ -65,4 +66,69 @@ export interface PointsPreview {
   problems: RowProblem[];
   validCount: number;
   invalidCount: number;
+}
+
+export interface SessionSummary {
+  id: number;
+  boardId: number;
+  channelKey: string;
+  state: CalibrationState;
+  performedOn: string;
+  ambientC: number;
+  tester?: PersonRef;
+  completedAt: string | null;
+  createdAt: string;
+  updatedAt: string;
+}
+
+export interface BoardRow {
+  id: number;
+  serialNumber: string;
+  revisionId: number;
+  revisionLetter: string;
+  designId: number;
+  designName: string;
+  buildDate: string;
+  note: string;
+  createdAt: string;
+  /** The newest session of each channel, by channel key. */
+  latestByChannel: Record<string, SessionSummary>;
+}
+
+export interface BoardDetail extends BoardRow {
+  sessions: SessionSummary[];
+}
+
+export interface StoredPoint {
+  id: number;
+  position: number;
+  appliedV: number;
+  frequencyHz: number;
+  counts: number | null;
+  uncertaintyHz: number | null;
+  excluded: boolean;
+  excludedReason: string;
+}
+
+export interface SessionAnalysis {
+  fit: FitView | null;
+  comparison: BoardComparison | null;
+  /** Why there is no fit yet, e.g. "no points yet". */
+  reason: string | null;
+}
+
+export interface SessionDetail extends SessionSummary {
+  reference: ReferenceSpec;
+  fit: FitSettings;
+  note: string;
+  board: { id: number; serialNumber: string; revisionId: number; revisionLetter: string; designId: number; designName: string };
+  points: StoredPoint[];
+  analysis: SessionAnalysis;
+}
+
+export interface CalibrationOverview {
+  channelKey: string;
+  channelName: string;
+  population: DesignPopulation;
+  boards: { boardId: number; serialNumber: string; sessionId: number | null; gainError: number | null; offsetErrorV: number | null; within: boolean | null }[];
 }

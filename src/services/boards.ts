@@ -1,39 +1,9 @@
 import { http } from './http';
 import { queryString } from '@/utils/queryString';
-import type { BoardCreateBody, CalibrationState, SessionCreateBody } from '@shared/schemas/calibration';
-import type { PersonRef } from './designs';
-import type { SessionDetail } from './calibrations';
+import type { BoardCreateBody, SessionCreateBody } from '@shared/schemas/calibration';
+import type { BoardDetail, BoardRow, SessionDetail } from '@shared/schemas/calibration-views';
 
-export interface SessionSummary {
-  id: number;
-  boardId: number;
-  channelKey: string;
-  state: CalibrationState;
-  performedOn: string;
-  ambientC: number;
-  tester?: PersonRef;
-  completedAt: string | null;
-  createdAt: string;
-  updatedAt: string;
-}
-
-export interface BoardRow {
-  id: number;
-  serialNumber: string;
-  revisionId: number;
-  revisionLetter: string;
-  designId: number;
-  designName: string;
-  buildDate: string;
-  note: string;
-  createdAt: string;
-  /** The newest session of each channel, by channel key. */
-  latestByChannel: Record<string, SessionSummary>;
-}
-
-export interface BoardDetail extends BoardRow {
-  sessions: SessionSummary[];
-}
+export type { BoardDetail, BoardRow, SessionSummary } from '@shared/schemas/calibration-views';
 
 const path = (id: number) => `/api/boards/${encodeURIComponent(id)}`;
 

@@ -1,51 +1,18 @@
 import { http } from './http';
 import { ApiError } from './apiError';
 import { queryString } from '@/utils/queryString';
-import type { CalibrationPointBody, CsvMapping, FitSettings, ReferenceSpec, SessionPatchBody } from '@shared/schemas/calibration';
-import type { SessionSummary } from './boards';
-import type { BoardComparison, DesignPopulation, FitView, PointsPreview, RowProblem } from '@shared/schemas/calibration-views';
+import type { CalibrationPointBody, CsvMapping, SessionPatchBody } from '@shared/schemas/calibration';
+import type { CalibrationOverview, PointsPreview, RowProblem, SessionDetail } from '@shared/schemas/calibration-views';
 
 export type { BoardComparison as Comparison, DesignPopulation, FitView, PointsPreview, RowProblem, Spread } from '@shared/schemas/calibration-views';
 
-export interface StoredPoint {
-  id: number;
-  position: number;
-  appliedV: number;
-  frequencyHz: number;
-  counts: number | null;
-  uncertaintyHz: number | null;
-  excluded: boolean;
-  excludedReason: string;
-}
-
-export interface SessionAnalysis {
-  fit: FitView | null;
-  comparison: BoardComparison | null;
-  /** Why there is no fit yet, e.g. "no points yet". */
-  reason: string | null;
-}
-
-export interface SessionDetail extends SessionSummary {
-  reference: ReferenceSpec;
-  fit: FitSettings;
-  note: string;
-  board: { id: number; serialNumber: string; revisionId: number; revisionLetter: string; designId: number; designName: string };
-  points: StoredPoint[];
-  analysis: SessionAnalysis;
-}
+export type { CalibrationOverview, SessionAnalysis, SessionDetail, StoredPoint } from '@shared/schemas/calibration-views';
 
 export interface PointsImportOutcome {
   imported: number;
   skipped: number;
   problems: RowProblem[];
   session: SessionDetail;
-}
-
-export interface CalibrationOverview {
-  channelKey: string;
-  channelName: string;
-  population: DesignPopulation;
-  boards: { boardId: number; serialNumber: string; sessionId: number | null; gainError: number | null; offsetErrorV: number | null; within: boolean | null }[];
 }
 
 export type PointWrite = Pick<CalibrationPointBody, 'appliedV' | 'frequencyHz'> & Partial<Omit<CalibrationPointBody, 'appliedV' | 'frequencyHz'>>;

@@ -1,8 +1,9 @@
 import type { Board } from '../../entities/Board.js';
 import type { CalibrationSession } from '../../entities/CalibrationSession.js';
-import { isoTimeOrNull } from '../../common/iso-time.js';
+import { isoTime, isoTimeOrNull } from '../../common/iso-time.js';
+import type { BoardRow, SessionDetail, SessionSummary, SessionAnalysis } from '../../../shared/schemas/calibration-views.js';
 
-export function toSessionSummary(s: CalibrationSession) {
+export function toSessionSummary(s: CalibrationSession): SessionSummary {
   return {
     id: s.id,
     boardId: s.boardId,
@@ -12,12 +13,12 @@ export function toSessionSummary(s: CalibrationSession) {
     ambientC: s.ambientC,
     tester: s.tester ? { id: s.tester.id, displayName: s.tester.displayName } : undefined,
     completedAt: isoTimeOrNull(s.completedAt),
-    createdAt: isoTimeOrNull(s.createdAt),
-    updatedAt: isoTimeOrNull(s.updatedAt),
+    createdAt: isoTime(s.createdAt),
+    updatedAt: isoTime(s.updatedAt),
   };
 }
 
-export function toSessionDetail(s: CalibrationSession, analysis: unknown) {
+export function toSessionDetail(s: CalibrationSession, analysis: SessionAnalysis): SessionDetail {
   return {
     ...toSessionSummary(s),
     reference: s.reference,
@@ -31,19 +32,19 @@ export function toSessionDetail(s: CalibrationSession, analysis: unknown) {
   };
 }
 
-export function toBoardView(b: Board, sessions: CalibrationSession[]) {
-  const latest: Record<string, ReturnType<typeof toSessionSummary>> = {};
+export function toBoardView(b: Board, sessions: CalibrationSession[]): BoardRow {
+  const latest: Record<string, SessionSummary> = {};
   for (const s of sessions) if (s.boardId === b.id && !latest[s.channelKey]) latest[s.channelKey] = toSessionSummary(s);
   return {
     id: b.id,
     serialNumber: b.serialNumber,
     revisionId: b.revisionId,
-    revisionLetter: b.revision?.letter,
-    designId: b.revision?.design?.id,
-    designName: b.revision?.design?.name,
+    revisionLetter: b.revision.letter,
+    designId: b.revision.design.id,
+    designName: b.revision.design.name,
     buildDate: b.buildDate,
     note: b.note,
-    createdAt: isoTimeOrNull(b.createdAt),
+    createdAt: isoTime(b.createdAt),
     latestByChannel: latest,
   };
 }
