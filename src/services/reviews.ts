@@ -1,28 +1,8 @@
 import { http } from './http';
 import { queryString } from '@/utils/queryString';
-import type { MarginVerdict } from '@shared/schemas/margin';
-import type { PersonRef, RevisionSummary } from './designs';
+import type { ReviewListState, ReviewRow, TransitionAnswer } from '@shared/schemas/review-views';
 
-export type ReviewListState = 'in_review' | 'changes_requested' | 'approved' | 'all';
-
-export interface ReviewRow {
-  revision: RevisionSummary;
-  design: { id: number; name: string; owner: PersonRef };
-  submittedAt: string | null;
-  submittedBy: { id: number | null; displayName: string | null } | null;
-  lastEvent: { action: string; at: string; actor: { id: number | null; displayName: string | null } } | null;
-  margin: { runId: number; verdict: MarginVerdict | null; failed: number } | null;
-}
-
-export interface MailOutcome {
-  sent: string[];
-  failed: string[];
-}
-
-export interface TransitionAnswer {
-  revision: RevisionSummary;
-  mail?: MailOutcome;
-}
+export type { MailOutcome, ReviewListState, ReviewRow, TransitionAnswer } from '@shared/schemas/review-views';
 
 const path = (id: number) => `/api/revisions/${encodeURIComponent(id)}`;
 

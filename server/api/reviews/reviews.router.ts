@@ -6,37 +6,41 @@ import { DESIGN_READERS, DESIGN_WRITERS } from '../designs/designs.router.js';
 import { toRevisionSummary } from '../designs/designs.mapper.js';
 import { decideReview, listReviews, reopenRevision, submitForReview } from './reviews.service.js';
 import { publicBaseUrl } from '../../common/public-url.js';
+import type { MailOutcome, ReviewRow, TransitionAnswer } from '../../../shared/schemas/review-views.js';
+import type { Revision } from '../../entities/Revision.js';
 
 export const REVIEWERS = ['lead', 'admin'] as const;
 
 
 /** Review transitions of a revision (mounted under /api/revisions). */
+const answer = (revision: Revision, mail?: MailOutcome): TransitionAnswer => ({ revision: toRevisionSummary(revision), mail });
+
 export function revisionReviewRoutes({ dataSource, mailer, config }: AppDeps): RouteSpec[] {
   return [
     defineRoute({
       method: 'post', path: '/:id/submit', access: DESIGN_WRITERS, params: idParamSchema,
       handler: async ({ params, user, req, res }) => {
         const { revision, mail } = await submitForReview(dataSource, mailer, user!, params.id, publicBaseUrl(config, req));
-        res.json({ revision: toRevisionSummary(revision), mail });
+        res.json(answer(revision, mail));
       },
     }),
     defineRoute({
       method: 'post', path: '/:id/approve', access: REVIEWERS, params: idParamSchema, body: approveSchema,
       handler: async ({ params, body, user, req, res }) => {
         const { revision, mail } = await decideReview(dataSource, mailer, user!, params.id, 'approve', body.comment, publicBaseUrl(config, req));
-        res.json({ revision: toRevisionSummary(revision), mail });
+        res.json(answer(revision, mail));
       },
     }),
     defineRoute({
       method: 'post', path: '/:id/request-changes', access: REVIEWERS, params: idParamSchema, body: requestChangesSchema,
       handler: async ({ params, body, user, req, res }) => {
         const { revision, mail } = await decideReview(dataSource, mailer, user!, params.id, 'request-changes', body.comment, publicBaseUrl(config, req));
-        res.json({ revision: toRevisionSummary(revision), mail });
+        res.json(answer(revision, mail));
       },
     }),
     defineRoute({
       method: 'post', path: '/:id/reopen', access: DESIGN_WRITERS, params: idParamSchema,
-      handler: async ({ params, user, res }) => { res.json({ revision: toRevisionSummary(await reopenRevision(dataSource, user!, params.id)) }); },
+      handler: async ({ params, user, res }) => { res.json(answer(await reopenRevision(dataSource, user!, params.id))); },
     }),
   ];
 }
@@ -48,14 +52,12 @@ export function reviewsRoutes({ dataSource }: AppDeps): RouteSpec[] {
       method: 'get', path: '', access: DESIGN_READERS, query: reviewListQuerySchema,
       handler: async ({ query, res }) => {
         const { items, total } = await listReviews(dataSource, query);
-        res.json({
-          items: items.map((i) => ({
-            ...i,
-            revision: toRevisionSummary(i.revision),
-            design: { id: i.revision.design.id, name: i.revision.design.name, owner: { id: i.revision.design.owner.id, displayName: i.revision.design.owner.displayName } },
-          })),
-          total,
-        });
+        const rows: ReviewRow[] = items.map((i) => ({
+          ...i,
+          revision: toRevisionSummary(i.revision),
+          design: { id: i.revision.design.id, name: i.revision.design.name, owner: { id: i.revision.design.owner.id, displayName: i.revision.design.owner.displayName } },
+        }));
+        res.json({ items: rows, total });
       },
     }),
   ];

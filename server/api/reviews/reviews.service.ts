@@ -12,15 +12,14 @@ import { latestDoneRun, currentRunHash } from '../margin/margin.service.js';
 import { getRevision } from '../revisions/revisions.service.js';
 import { decisionMessage, submittedMessage } from './reviews.mail.js';
 import { isoTime } from '../../common/iso-time.js';
+import type { MailOutcome } from '../../../shared/schemas/review-views.js';
+import type { MarginVerdict } from '../../../shared/schemas/margin.js';
 
 /** Audit actions of the review workflow, oldest first in a revision's history. */
 export const REVIEW_ACTIONS = ['revision.submit', 'revision.approve', 'revision.request-changes', 'revision.reopen'] as const;
 export type ReviewAction = (typeof REVIEW_ACTIONS)[number];
 
-export interface MailOutcome {
-  sent: string[];
-  failed: string[];
-}
+export type { MailOutcome };
 
 export interface TransitionResult {
   revision: Revision;
@@ -137,7 +136,7 @@ export async function listReviews(dataSource: DataSource, query: ReviewListQuery
     const mine = events.filter((e) => e.subject === `revision:${r.id}`);
     const submit = mine.filter((e) => e.action === 'revision.submit').at(-1);
     const last = mine.at(-1);
-    const result = margins[i]?.result as { verdict?: string; summary?: { pass: boolean }[] } | undefined;
+    const result = margins[i]?.result as { verdict?: MarginVerdict; summary?: { pass: boolean }[] } | undefined;
     return {
       revision: r,
       submittedAt: submit ? isoTime(submit.at) : null,

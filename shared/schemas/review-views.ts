@@ -1,0 +1,28 @@
+import type { PersonRef, RevisionSummary } from './design-views.js';
+import type { MarginVerdict } from './margin.js';
+
+/** What the server returns about reviews; one definition for the server and the client. */
+
+export type ReviewListState = 'in_review' | 'changes_requested' | 'approved' | 'all';
+
+export interface ReviewRow {
+  revision: RevisionSummary;
+  design: { id: number; name: string; owner: PersonRef };
+  submittedAt: string | null;
+  submittedBy: { id: number | null; displayName: string | null } | null;
+  lastEvent: { action: string; at: string; actor: { id: number | null; displayName: string | null } } | null;
+  /** The latest finished margin study: its verdict and how many criteria failed. */
+  margin: { runId: number; verdict: MarginVerdict | null; failed: number } | null;
+}
+
+/** Who the workflow's e-mails reached and who they did not. */
+export interface MailOutcome {
+  sent: string[];
+  failed: string[];
+}
+
+/** The answer to submit, approve, request changes and reopen. */
+export interface TransitionAnswer {
+  revision: RevisionSummary;
+  mail?: MailOutcome;
+}
