@@ -1,18 +1,9 @@
 import type { ChannelDefinition } from '../../../shared/schemas/chain.js';
 import { formatEng } from '../../../shared/units/index.js';
 
-/** One parameter line of a chain stage: the number, its unit and how it reads. */
-export interface ChainRow {
-  label: string;
-  value: number | string;
-  unit: string;
-  text: string;
-}
+import type { ReportChainRow as ChainRow, ReportChainStage as ChainStage } from '../../../shared/schemas/report-views.js';
 
-export interface ChainStage {
-  stage: string;
-  rows: ChainRow[];
-}
+export type { ChainRow, ChainStage };
 
 /** Units that take SI prefixes; the others (%, ppm, °C, counts) are printed plainly. */
 const SI_UNITS = new Set(['Ω', 'V', 'Hz', 'Hz/V', 'A', 's', 'W', 'Bd', 'F']);

@@ -11,7 +11,8 @@ import { REVIEW_ACTIONS } from '../reviews/reviews.service.js';
 import type { MarginStudyData } from '../margin/margin-study.js';
 import { HIGH_VOLTAGE_CAUTION } from './caution.js';
 import { chainStages } from './chain-rows.js';
-import { isoTimeOrNull } from '../../common/iso-time.js';
+import { isoTime, isoTimeOrNull } from '../../common/iso-time.js';
+import type { ReportUncertaintyChannel, RevisionReport, RunHeader } from '../../../shared/schemas/report-views.js';
 
 const ACTION_LABELS: Record<string, string> = {
   'revision.submit': 'Submitted for review',
@@ -20,7 +21,7 @@ const ACTION_LABELS: Record<string, string> = {
   'revision.reopen': 'Moved back to draft',
 };
 
-function runHeader(run: AnalysisRun, current: boolean) {
+function runHeader(run: AnalysisRun, current: boolean): RunHeader {
   return {
     runId: run.id, current, seed: run.seed, trials: run.trials, finishedAt: isoTimeOrNull(run.finishedAt),
     requestedBy: run.requestedBy ? { id: run.requestedBy.id, displayName: run.requestedBy.displayName } : null,
@@ -28,7 +29,7 @@ function runHeader(run: AnalysisRun, current: boolean) {
 }
 
 /** Per channel: coverage at each voltage, and the budget where the GUM expanded uncertainty is largest. */
-function uncertaintySection(run: AnalysisRun, current: boolean) {
+function uncertaintySection(run: AnalysisRun, current: boolean): RunHeader & { channels: ReportUncertaintyChannel[] } {
   const result = run.result as { channels: { key: string; name: string; study: ChannelStudy }[] };
   return {
     ...runHeader(run, current),
@@ -61,7 +62,7 @@ function uncertaintySection(run: AnalysisRun, current: boolean) {
 }
 
 /** Everything the printable review report shows, in the order it shows it. */
-export async function buildReport(dataSource: DataSource, revisionId: number, now = new Date()) {
+export async function buildReport(dataSource: DataSource, revisionId: number, now = new Date()): Promise<RevisionReport> {
   const revision = await getRevision(dataSource, revisionId);
   const [uncertaintyRun, marginRun, stored] = await Promise.all([
     latestDoneRun(dataSource, revisionId, 'uncertainty'), latestDoneRun(dataSource, revisionId, 'margin'), marginInputsOf(dataSource, revisionId),
@@ -93,7 +94,7 @@ export async function buildReport(dataSource: DataSource, revisionId: number, no
     /** The inputs as they are now (may differ from the study's when the study is not current). */
     marginInputs: stored.inputs as MarginInputs,
     signOff: events.map((e) => ({
-      at: isoTimeOrNull(e.at),
+      at: isoTime(e.at),
       action: e.action,
       label: ACTION_LABELS[e.action] ?? e.action,
       actor: { id: e.actorId, displayName: actors.find((a) => a.id === e.actorId)?.displayName ?? null },
@@ -103,4 +104,4 @@ export async function buildReport(dataSource: DataSource, revisionId: number, no
   };
 }
 
-export type ReviewReport = Awaited<ReturnType<typeof buildReport>>;
+export type ReviewReport = RevisionReport;

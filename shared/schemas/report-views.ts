@@ -1,0 +1,87 @@
+import type { PersonRef } from './design-views.js';
+import type { RevisionState } from './designs.js';
+import type { MarginInputs, MarginStudyResult } from './margin.js';
+
+/** What the server returns for a revision's review report; one definition for the server, the PDF and the page. */
+
+/** One parameter line of a chain stage: the number, its unit and how it reads. */
+export interface ReportChainRow {
+  label: string;
+  value: number | string;
+  unit: string;
+  /** The value as the server formatted it, unit included. */
+  text: string;
+}
+
+export interface ReportBudgetRow {
+  label: string;
+  where: string;
+  unit: string;
+  distribution: string;
+  halfWidth: number;
+  standardUncertainty: number;
+  sensitivity: number;
+  contributionV: number;
+  sharePct: number;
+}
+
+export interface ReportUncertaintyChannel {
+  key: string;
+  name: string;
+  trials: number;
+  coverageProbability: number;
+  gumAdequate: boolean;
+  points: {
+    voltageV: number;
+    monteCarloMeanV: number;
+    monteCarloIntervalV: { low: number; high: number };
+    gumExpandedUncertaintyV: number;
+    worstCaseMaxAbsV: number;
+  }[];
+  budget: {
+    voltageV: number;
+    combinedStandardUncertaintyV: number;
+    expandedUncertaintyV: number;
+    coverageFactor: number;
+    rows: ReportBudgetRow[];
+  };
+}
+
+export interface RunHeader {
+  runId: number;
+  /** Whether the study used the revision as it is now. */
+  current: boolean;
+  seed: number;
+  trials: number | null;
+  finishedAt: string | null;
+  requestedBy?: PersonRef | null;
+}
+
+export interface ReportChainStage {
+  stage: string;
+  rows: ReportChainRow[];
+}
+
+export interface ReportSignOff {
+  at: string;
+  action: string;
+  label: string;
+  actor: { id: number | null; displayName: string | null };
+  comment: string;
+}
+
+export interface RevisionReport {
+  generatedAt: string;
+  title: string;
+  design: { id: number; name: string; purpose?: string; owner: PersonRef };
+  revision: {
+    id: number; letter: string; state: RevisionState; stateLabel: string; note: string;
+    basedOnId?: number | null; createdBy: PersonRef; createdAt?: string | null; updatedAt?: string | null;
+  };
+  channels: { key: string; name: string; stages: ReportChainStage[] }[];
+  uncertainty: null | (RunHeader & { channels: ReportUncertaintyChannel[] });
+  margin: null | (RunHeader & { inputs: MarginInputs; result: MarginStudyResult });
+  marginInputs: MarginInputs;
+  signOff: ReportSignOff[];
+  caution: { title: string; paragraphs: readonly string[] };
+}
