@@ -1,6 +1,7 @@
 import { http } from './http';
 import { queryString } from '@/utils/queryString';
 import type { StockPartBody } from '@shared/schemas/stock';
+import type { StockImportOutcome, StockPreview } from '@shared/schemas/stock-views';
 
 export { STOCK_CSV_COLUMNS, STOCK_CSV_REQUIRED } from '@shared/schemas/stock';
 
@@ -20,24 +21,8 @@ export interface StockListQuery {
   pageSize: number;
 }
 
-export interface RowProblem {
-  row: number;
-  column: string;
-  problem: string;
-}
-
-export interface ImportPreview {
-  rows: { row: number; part: StockPartBody | null }[];
-  problems: RowProblem[];
-  validCount: number;
-  invalidCount: number;
-}
-
-export interface ImportOutcome {
-  imported: number;
-  skipped: number;
-  problems: RowProblem[];
-}
+export type { RowProblem } from '@shared/schemas/common';
+export type { StockImportOutcome as ImportOutcome, StockPreview as ImportPreview } from '@shared/schemas/stock-views';
 
 export type ImportMode = 'preview' | 'all' | 'valid-only';
 
@@ -57,7 +42,7 @@ export const stockApi = {
   create: (part: StockPartBody) => http.post<{ part: StockPart }>('/api/stock', part).then((r) => r.part),
   update: (id: number, patch: Partial<StockPartBody>) => http.patch<{ part: StockPart }>(path(id), patch).then((r) => r.part),
   remove: (id: number) => http.delete<void>(path(id)),
-  preview: (file: File) => http.upload<ImportPreview>('/api/stock/import?mode=preview', fileForm(file)),
+  preview: (file: File) => http.upload<StockPreview>('/api/stock/import?mode=preview', fileForm(file)),
   import: (file: File, mode: Exclude<ImportMode, 'preview'>) =>
-    http.upload<ImportOutcome>(`/api/stock/import?mode=${mode}`, fileForm(file)),
+    http.upload<StockImportOutcome>(`/api/stock/import?mode=${mode}`, fileForm(file)),
 };

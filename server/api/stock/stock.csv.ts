@@ -5,13 +5,9 @@ import type { CsvTable } from '../../common/csv.js';
 import type { RowProblem } from '../../../shared/schemas/common.js';
 import { BadRequestError } from '../../common/errors.js';
 import type { StockPart } from '../../entities/StockPart.js';
+import type { StockPreview } from '../../../shared/schemas/stock-views.js';
 
-export interface StockPreview {
-  rows: { row: number; part: StockPartBody | null }[];
-  problems: RowProblem[];
-  validCount: number;
-  invalidCount: number;
-}
+export type { StockPreview };
 
 const NUMERIC: Record<string, keyof StockPartBody> = {
   tolerance_pct: 'tolerancePct',

@@ -7,6 +7,7 @@ import { defineRoute, type RouteSpec } from '../../common/routes.js';
 import { csvUpload } from '../../common/upload.js';
 import { previewStockCsv, stockToCsv } from './stock.csv.js';
 import { allStock, createStockPart, deleteStockPart, importStock, listStock, updateStockPart } from './stock.service.js';
+import type { StockImportOutcome } from '../../../shared/schemas/stock-views.js';
 
 const WRITERS = ['designer', 'admin'] as const;
 const READERS = ['designer', 'admin', 'tester', 'lead'] as const;
@@ -47,7 +48,8 @@ export function stockRoutes({ dataSource }: AppDeps): RouteSpec[] {
           return;
         }
         const imported = await importStock(dataSource, user!, preview, query.mode === 'valid-only');
-        res.status(201).json({ imported, skipped: preview.invalidCount, problems: preview.problems });
+        const outcome: StockImportOutcome = { imported, skipped: preview.invalidCount, problems: preview.problems };
+        res.status(201).json(outcome);
       },
     }),
   ];
