@@ -1,23 +1,12 @@
 import { http } from './http';
-import type { Role, User } from './users';
+import type { User } from './users';
+import type { Invite, InviteDetails } from '@shared/schemas/admin-views';
 import type { InviteAcceptBody, InviteCreateBody } from '@shared/schemas/auth';
 
 export type InviteRequest = InviteCreateBody;
 export type AcceptInviteRequest = InviteAcceptBody;
 
-export interface Invite {
-  id: number;
-  email: string;
-  role: Role;
-  expiresAt: string;
-}
-
-/** What an invitation link reveals before it is accepted. */
-export interface InviteDetails {
-  email: string;
-  role: Role;
-  expiresAt: string;
-}
+export type { Invite, InviteDetails } from '@shared/schemas/admin-views';
 
 export const invitesApi = {
   create: (request: InviteRequest) =>

@@ -1,19 +1,7 @@
 import { http } from './http';
+import type { OutboxList } from '@shared/schemas/admin-views';
 
-export interface OutboxMessage {
-  id: number;
-  to: string;
-  from: string;
-  subject: string;
-  receivedAt: string;
-  text: string;
-  html: string | null;
-}
-
-export interface OutboxList {
-  items: OutboxMessage[];
-  total: number;
-}
+export type { OutboxList, OutboxMessage } from '@shared/schemas/admin-views';
 
 export const outboxApi = {
   list: () => http.get<OutboxList>('/api/outbox'),

@@ -1,10 +1,7 @@
 import { http } from './http';
+import type { ResistorSeries } from '@shared/schemas/admin-views';
 
-export interface ResistorSeries {
-  name: string;
-  valuesPerDecade: number;
-  values: number[];
-}
+export type { ResistorSeries } from '@shared/schemas/admin-views';
 
 export const seriesApi = {
   list: () => http.get<{ items: ResistorSeries[] }>('/api/series').then((r) => r.items),

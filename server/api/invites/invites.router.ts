@@ -6,6 +6,7 @@ import { toPublicUser } from '../users/users.mapper.js';
 import { acceptInvite, createInvite, findUsableInvite } from './invites.service.js';
 import type { RequestHandler } from 'express';
 import { publicBaseUrl } from '../../common/public-url.js';
+import type { Invite, InviteDetails } from '../../../shared/schemas/admin-views.js';
 
 const tokenParams = z.strictObject({ token: inviteTokenSchema });
 
@@ -16,7 +17,8 @@ export function invitesRoutes({ dataSource, mailer, config }: AppDeps, limit: Re
       handler: async ({ body, user, req, res }) => {
         const baseUrl = publicBaseUrl(config, req);
         const invite = await createInvite(dataSource, mailer, user!, body, baseUrl);
-        res.status(201).json({ invite: { id: invite.id, email: invite.email, role: invite.role, expiresAt: invite.expiresAt.toISOString() } });
+        const view: Invite = { id: invite.id, email: invite.email, role: invite.role, expiresAt: invite.expiresAt.toISOString() };
+        res.status(201).json({ invite: view });
       },
     }),
     defineRoute({
@@ -31,7 +33,8 @@ export function invitesRoutes({ dataSource, mailer, config }: AppDeps, limit: Re
       method: 'get', path: '/:token', access: 'public', params: tokenParams, before: [limit],
       handler: async ({ params, res }) => {
         const invite = await findUsableInvite(dataSource, params.token);
-        res.json({ email: invite.email, role: invite.role, expiresAt: invite.expiresAt.toISOString() });
+        const details: InviteDetails = { email: invite.email, role: invite.role, expiresAt: invite.expiresAt.toISOString() };
+        res.json(details);
       },
     }),
   ];

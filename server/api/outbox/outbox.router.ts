@@ -3,6 +3,7 @@ import type { AppDeps } from '../../common/deps.js';
 import { defineRoute, type RouteSpec } from '../../common/routes.js';
 import { listOutbox } from './outbox.service.js';
 import { isoTime } from '../../common/iso-time.js';
+import type { OutboxList } from '../../../shared/schemas/admin-views.js';
 
 export function outboxRoutes({ dataSource }: AppDeps): RouteSpec[] {
   return [
@@ -10,10 +11,11 @@ export function outboxRoutes({ dataSource }: AppDeps): RouteSpec[] {
       method: 'get', path: '', access: ['admin'], query: listQuerySchema,
       handler: async ({ query, res }) => {
         const { items, total } = await listOutbox(dataSource, query.page, query.pageSize);
-        res.json({
-          items: items.map((m) => ({ ...m, receivedAt: isoTime(m.receivedAt) })),
+        const list: OutboxList = {
+          items: items.map((m) => ({ id: m.id, to: m.to, from: m.from, subject: m.subject, receivedAt: isoTime(m.receivedAt), text: m.text, html: m.html })),
           total,
-        });
+        };
+        res.json(list);
       },
     }),
   ];
