@@ -31,7 +31,8 @@ export const designPatchSchema = z
   .refine((v) => v.name !== undefined || v.purpose !== undefined, { error: 'give name or purpose to change' });
 export type DesignPatchBody = z.infer<typeof designPatchSchema>;
 
-export const DESIGN_SORTS = ['name', 'updatedAt', 'createdAt'] as const;
+export const DESIGN_SORTS = ['name', 'owner', 'updatedAt', 'createdAt'] as const;
+export type DesignSort = (typeof DESIGN_SORTS)[number];
 export const designListQuerySchema = listQuerySchema.extend({
   search: z.string().trim().max(120, { error: 'search must be at most 120 characters' }).optional(),
   sort: z.enum(DESIGN_SORTS, { error: `sort must be one of ${DESIGN_SORTS.join(', ')}` }).default('updatedAt'),

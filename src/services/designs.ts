@@ -1,13 +1,13 @@
 import { http } from './http';
 import { queryString } from '@/utils/queryString';
 import type { DesignDetail, DesignList, RevisionDetail } from '@shared/schemas/design-views';
-import type { DesignCreateBody, DesignPatchBody } from '@shared/schemas/designs';
+import type { DesignCreateBody, DesignPatchBody, DesignSort } from '@shared/schemas/designs';
 
 export { REVISION_STATE_LABELS, type RevisionState } from '@shared/schemas/designs';
 
 export type { DesignDetail, DesignList, DesignRow, PersonRef, RevisionRef, RevisionSummary } from '@shared/schemas/design-views';
 
-export type DesignSort = 'name' | 'updatedAt' | 'createdAt';
+export type { DesignSort } from '@shared/schemas/designs';
 
 export interface DesignListQuery {
   search?: string;

@@ -30,6 +30,18 @@ describe('designs and revisions', () => {
     expect(list.body.items[0]).toMatchObject({ owner: { displayName: 'Tamsin Fenwright' }, latestRevision: { letter: 'A', state: 'draft' } });
     const found = await lead.get(`/api/designs?search=${encodeURIComponent('50%_')}`);
     expect(found.body.items.map((d: { name: string }) => d.name)).toEqual(['Alpha 50%_odd']);
+    // By owner: the admin's design and the designer's, ordered by the name shown (binary order, ties by id).
+    const admin = await t.signIn('admin@example.test', 'tallyvolt-admin');
+    expect((await admin.post('/api/designs').send({ name: 'Zulu bench' })).status).toBe(201);
+    for (const order of ['asc', 'desc'] as const) {
+      const byOwner = (await lead.get(`/api/designs?sort=owner&order=${order}`)).body.items as { id: number; owner: { displayName: string } }[];
+      const expected = [...byOwner].sort((a, b) => {
+        const byName = a.owner.displayName < b.owner.displayName ? -1 : a.owner.displayName > b.owner.displayName ? 1 : 0;
+        return (order === 'asc' ? byName : -byName) || a.id - b.id;
+      });
+      expect(byOwner.map((d) => d.id)).toEqual(expected.map((d) => d.id));
+      expect(new Set(byOwner.map((d) => d.owner.displayName)).size).toBe(2);
+    }
     const bad = await lead.get('/api/designs?sort=colour&pageSize=0');
     expect(bad.status).toBe(400);
     expect(Object.keys(bad.body.fields).sort()).toEqual(['pageSize', 'sort']);

@@ -10,12 +10,13 @@ import { Revision } from '../../entities/Revision.js';
 import type { User } from '../../entities/User.js';
 import { TEMPLATE_CHANNELS } from './design-template.js';
 import { compareLetters } from './revision-letters.js';
+import type { DesignSort } from '../../../shared/schemas/designs.js';
 
 export interface DesignListOptions {
   page: number;
   pageSize: number;
   search?: string;
-  sort: 'name' | 'updatedAt' | 'createdAt';
+  sort: DesignSort;
   order: 'asc' | 'desc';
 }
 
@@ -24,7 +25,8 @@ export async function listDesigns(dataSource: DataSource, o: DesignListOptions) 
   const [designs, total] = await dataSource.getRepository(Design).findAndCount({
     where: o.search ? { name: containsText(o.search) } : undefined,
     relations: { owner: true, revisions: true },
-    order: { [o.sort]: o.order.toUpperCase(), id: 'ASC' },
+    // The owner column sorts by the name people see.
+    order: { ...(o.sort === 'owner' ? { owner: { displayName: o.order } } : { [o.sort]: o.order }), id: 'ASC' },
     skip: (o.page - 1) * o.pageSize,
     take: o.pageSize,
   });
