@@ -6,5 +6,5 @@ export { inverseLine, invertFit, fitInversePolynomial } from './invert-polynomia
 export type { InverseLine } from './invert-polynomial.js';
 export { householderLeastSquares, solveUpper, solveUpperTransposed } from './householder-qr.js';
 export type { QrLeastSquares } from './householder-qr.js';
-export { readingUncertainty, referenceDivisor } from './reading-uncertainty.js';
+export { lineUncertainty, readingUncertainty, referenceDivisor } from './reading-uncertainty.js';
 export type { ReadingUncertainty, ReferenceAccuracy } from './reading-uncertainty.js';

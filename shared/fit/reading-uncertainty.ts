@@ -27,6 +27,26 @@ export function referenceDivisor(reference: ReferenceAccuracy): number {
   return reference.coverageFactor === 0 ? Math.sqrt(3) : reference.coverageFactor;
 }
 
+/**
+ * Standard uncertainties of a board's calibrated straight line f = b₀ + b₁·V: its gain as a fraction of
+ * `gainHzPerV` and its offset in volts, each from the coefficient's standard error and the reference's share
+ * (its % of reading moves the gain, its volts move the offset; both common to every point), in quadrature.
+ * @param standardErrors [u(b₀), u(b₁)] of the fit, Hz and Hz/V
+ * @param gainHzPerV the gain the fraction is taken of (the board's own b₁, or the design's nominal gain)
+ * @param reference the reference instrument's accuracy
+ * @example lineUncertainty(fit.standardErrors, fit.coefficients[1], reference).gainFraction
+ */
+export function lineUncertainty(
+  standardErrors: readonly number[], gainHzPerV: number, reference: ReferenceAccuracy,
+): { gainFraction: number; offsetV: number } {
+  const divisor = referenceDivisor(reference);
+  const g = Math.abs(gainHzPerV);
+  return {
+    gainFraction: Math.hypot(standardErrors[1] / g, reference.percentOfReading / 100 / divisor),
+    offsetV: Math.hypot(standardErrors[0] / g, reference.plusVolts / divisor),
+  };
+}
+
 /** Standard uncertainties in volts at one applied voltage, and the expanded result. */
 export interface ReadingUncertainty {
   appliedV: number;

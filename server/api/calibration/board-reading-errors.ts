@@ -6,7 +6,7 @@ import { getBoard, sessionsOfBoards } from '../boards/boards.service.js';
 import type { BoardReadingErrors } from '../margin/board-errors.js';
 import { getSession, sessionChannel } from './sessions.service.js';
 import { fitSession } from './session-fit.js';
-import { referenceDivisor } from '../../../shared/fit/index.js';
+import { lineUncertainty } from '../../../shared/fit/index.js';
 
 const TRIALS = 20_000;
 const SEED = 62;
@@ -28,15 +28,13 @@ export async function boardReadingErrors(dataSource: DataSource, boardId: number
     const session = await getSession(dataSource, summary.id);
     const definition = await sessionChannel(dataSource, session);
     const fit = fitSession({ ...session.fit, degree: 1 }, session.points, session.reference);
-    const b1 = fit.coefficients[1];
-    const ref = session.reference;
-    const divisor = referenceDivisor(ref);
+    const u = lineUncertainty(fit.standardErrors, fit.coefficients[1], session.reference);
     const calibrated: ChannelDefinition = {
       ...definition,
       reconstruction: {
         mode: 'calibrated', temperatureC: session.ambientC, coverageFactor: 2,
-        gainUncertaintyFraction: 2 * Math.hypot(fit.standardErrors[1] / Math.abs(b1), ref.percentOfReading / 100 / divisor),
-        offsetUncertaintyV: 2 * Math.hypot(fit.standardErrors[0] / Math.abs(b1), ref.plusVolts / divisor),
+        gainUncertaintyFraction: 2 * u.gainFraction,
+        offsetUncertaintyV: 2 * u.offsetV,
       },
     };
     channels[summary.channelKey] = readingErrorSamples(calibrated, { seed: SEED, trials: TRIALS });

@@ -1,7 +1,7 @@
 import { dividerNominal, nominalFrequencyHz } from '../../../shared/chain/index.js';
 import { readingErrorSamples } from '../../../shared/precharge/index.js';
 import { histogramOf } from '../../../shared/propagation/index.js';
-import { fitPolynomial, referenceDivisor, type ReferenceAccuracy } from '../../../shared/fit/index.js';
+import { fitPolynomial, lineUncertainty, type ReferenceAccuracy } from '../../../shared/fit/index.js';
 import type { ChannelDefinition } from '../../../shared/schemas/chain.js';
 import type { BoardComparison, DesignPopulation, Spread } from '../../../shared/schemas/calibration-views.js';
 import type { CalibrationPoint } from '../../entities/CalibrationPoint.js';
@@ -58,12 +58,12 @@ export function compareBoard(
   const ratio = dividerNominal(channel.divider, channel.converter.inputResistanceOhm).ratio;
   const f0 = nominalFrequencyHz(channel.converter, ratio, 0);
   const gainHzPerV = nominalFrequencyHz(channel.converter, ratio, 1) - f0;
-  const divisor = referenceDivisor(reference);
+  const u = lineUncertainty(line.standardErrors, gainHzPerV, reference);
   const board = {
     gainError: line.coefficients[1] / gainHzPerV - 1,
     offsetErrorV: (line.coefficients[0] - f0) / gainHzPerV,
-    gainErrorExpanded: BOARD_K * Math.hypot(line.standardErrors[1] / gainHzPerV, reference.percentOfReading / 100 / divisor),
-    offsetErrorExpandedV: BOARD_K * Math.hypot(line.standardErrors[0] / gainHzPerV, reference.plusVolts / divisor),
+    gainErrorExpanded: BOARD_K * u.gainFraction,
+    offsetErrorExpandedV: BOARD_K * u.offsetV,
     coverageFactor: BOARD_K,
   };
   const population = designPopulation(channel, ambientC);

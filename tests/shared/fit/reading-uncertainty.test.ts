@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { fitPolynomial, readingUncertainty } from '../../../shared/fit/index.js';
+import { fitPolynomial, lineUncertainty, readingUncertainty } from '../../../shared/fit/index.js';
 import { studentTQuantile } from '../../../shared/stats/index.js';
 import { loadDataset } from './nist-strd-fixture.js';
 
@@ -60,5 +60,17 @@ describe('readingUncertainty', () => {
   it('refuses a fit without residual degrees of freedom and a negative reference bound', () => {
     expect(() => readingUncertainty({ ...fit, residualDegreesOfFreedom: 0 }, none, [0.5])).toThrow(/residual degree of freedom/);
     expect(() => readingUncertainty(fit, { ...none, plusVolts: -1 }, [1])).toThrow(/≥ 0/);
+  });
+
+  it('splits the reference into a gain share and an offset share of a calibrated line', () => {
+    const reference = { percentOfReading: 0.05, plusVolts: 0.1, coverageFactor: 0 };
+    const onlyReference = lineUncertainty([0, 0], 80, reference);
+    expect(onlyReference.gainFraction).toBeCloseTo(0.0005 / Math.sqrt(3), 15); // rectangular limit, u = a/√3 (JCGM 100 4.3.7)
+    expect(onlyReference.offsetV).toBeCloseTo(0.1 / Math.sqrt(3), 15);
+    const onlyFit = lineUncertainty([0.4, 0.008], -80, none);
+    expect(onlyFit.gainFraction).toBeCloseTo(1e-4, 15); // u(b₁)/|G|
+    expect(onlyFit.offsetV).toBeCloseTo(0.005, 15); // u(b₀)/|G|: hertz back to volts
+    const both = lineUncertainty([0.4, 0.008], 80, reference);
+    expect(both.gainFraction).toBeCloseTo(Math.hypot(1e-4, 0.0005 / Math.sqrt(3)), 15); // independent shares add in quadrature (JCGM 100 5.1.2)
   });
 });
