@@ -28,6 +28,17 @@ export const CHART_COLOURS = {
   worstCase: '#a97400',
 };
 
+/** What every chart here shares: it fills its figure and draws at once, without animation. */
+export const CHART_BASE = { responsive: true, maintainAspectRatio: false, animation: false } as const;
+/** The same, for charts whose points are given ready as { x, y }. */
+export const XY_CHART_BASE = { ...CHART_BASE, parsing: false } as const;
+
+/** Keeps one legend entry per label (a band is drawn as two lines with the same name). */
+export const uniqueLegend = {
+  filter: (item: { text: string; datasetIndex?: number }, chart: { datasets: { label?: string }[] }) =>
+    chart.datasets.findIndex((d) => d.label === item.text) === item.datasetIndex,
+};
+
 /** Saves a chart as a PNG file through a temporary link. */
 export function downloadChart(chart: Chart | undefined | null, fileName: string): void {
   if (!chart) return;

@@ -32,9 +32,3 @@ export const horizontalLine = (y: number, from: number, to: number): XY[] => [{ 
 export function histogramPoints(histogram: Histogram, scale = 1): XY[] {
   return histogram.counts.map((count, i) => ({ x: ((histogram.edges[i] + histogram.edges[i + 1]) / 2) * scale, y: count }));
 }
-
-/** Keeps one legend entry per label (a band is drawn as two lines with the same name). */
-export const uniqueLegend = {
-  filter: (item: { text: string; datasetIndex?: number }, chart: { datasets: { label?: string }[] }) =>
-    chart.datasets.findIndex((d) => d.label === item.text) === item.datasetIndex,
-};
