@@ -6,7 +6,7 @@ import { getRevision, replaceChannels, startNextRevision } from '../api/revision
 import { DEFAULT_MARGIN_INPUTS } from '../api/margin/margin-defaults.js';
 import { computeMarginStudy } from '../api/margin/margin-study.js';
 import { marginStudyData, saveMarginInputs } from '../api/margin/margin.service.js';
-import type { UncertaintyRunInputs } from '../api/runs/run-scheduler.js';
+import type { UncertaintyRunInputs } from '../../shared/schemas/run-views.js';
 import { channelsHash } from '../api/runs/runs.service.js';
 import { channelStudy } from '../../shared/propagation/index.js';
 import type { RevisionState } from '../../shared/schemas/designs.js';

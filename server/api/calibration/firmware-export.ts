@@ -1,4 +1,4 @@
-import type { FitView } from './session-fit.js';
+import type { FitView } from '../../../shared/schemas/calibration-views.js';
 
 export interface ExportContext {
   serialNumber: string;

@@ -3,8 +3,6 @@ import {
 } from '../../../shared/fit/index.js';
 import type { FitSettings } from '../../../shared/schemas/calibration.js';
 import type { FitView } from '../../../shared/schemas/calibration-views.js';
-
-export type { FitView };
 import type { CalibrationPoint } from '../../entities/CalibrationPoint.js';
 
 /** |studentised residual| above this marks a point as suspect. */

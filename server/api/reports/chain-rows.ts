@@ -3,8 +3,6 @@ import { formatEng } from '../../../shared/units/index.js';
 
 import type { ReportChainRow as ChainRow, ReportChainStage as ChainStage } from '../../../shared/schemas/report-views.js';
 
-export type { ChainRow, ChainStage };
-
 /** Units that take SI prefixes; the others (%, ppm, °C, counts) are printed plainly. */
 const SI_UNITS = new Set(['Ω', 'V', 'Hz', 'Hz/V', 'A', 's', 'W', 'Bd', 'F']);
 

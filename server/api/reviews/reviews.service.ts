@@ -19,7 +19,6 @@ import type { MarginVerdict } from '../../../shared/schemas/margin.js';
 export const REVIEW_ACTIONS = ['revision.submit', 'revision.approve', 'revision.request-changes', 'revision.reopen'] as const;
 export type ReviewAction = (typeof REVIEW_ACTIONS)[number];
 
-export type { MailOutcome };
 
 export interface TransitionResult {
   revision: Revision;

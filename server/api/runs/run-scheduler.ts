@@ -13,7 +13,6 @@ export const PER_USER_LIMIT = 2;
 const CONCURRENT_RUNS = 2;
 const PROGRESS_WRITE_MS = 1000;
 
-export type { UncertaintyRunInputs };
 
 interface ActiveRun {
   controller: AbortController;

@@ -8,7 +8,8 @@ import { AnalysisRun } from '../../entities/AnalysisRun.js';
 import type { User } from '../../entities/User.js';
 import { getRevision } from '../revisions/revisions.service.js';
 import { contentHash } from './inputs-hash.js';
-import type { RunScheduler, UncertaintyRunInputs } from './run-scheduler.js';
+import type { RunScheduler } from './run-scheduler.js';
+import type { UncertaintyRunInputs } from '../../../shared/schemas/run-views.js';
 
 /** The revision content a study depends on. */
 export const channelsHash = (channels: { key: string; definition: unknown }[]) =>

@@ -7,7 +7,6 @@ import { BadRequestError } from '../../common/errors.js';
 import type { StockPart } from '../../entities/StockPart.js';
 import type { StockPreview } from '../../../shared/schemas/stock-views.js';
 
-export type { StockPreview };
 
 const NUMERIC: Record<string, keyof StockPartBody> = {
   tolerance_pct: 'tolerancePct',

@@ -7,7 +7,7 @@ import { importableRows } from '../../common/csv.js';
 import { BadRequestError, NotFoundError } from '../../common/errors.js';
 import { StockPart } from '../../entities/StockPart.js';
 import type { User } from '../../entities/User.js';
-import type { StockPreview } from './stock.csv.js';
+import type { StockPreview } from '../../../shared/schemas/stock-views.js';
 
 export interface StockListOptions {
   page: number;
