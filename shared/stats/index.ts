@@ -5,3 +5,4 @@ export { sortedQuantile, symmetricCoverageInterval, shortestCoverageInterval } f
 export type { CoverageInterval } from './sorted-quantile.js';
 export { effectiveDegreesOfFreedom } from './welch-satterthwaite.js';
 export type { UncertaintyContribution } from './welch-satterthwaite.js';
+export { clopperPearsonUpper, clopperPearsonLower, trialsToShow } from './clopper-pearson.js';
