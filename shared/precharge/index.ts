@@ -15,3 +15,5 @@ export type { PrechargeStudy, PrechargeStudyOptions, Distribution } from './stud
 export { readingErrorSamples } from './reading-errors.js';
 export { nominalClosability } from './closability.js';
 export type { Closability } from './closability.js';
+export { checkProbability, independentTrials, readingErrorDraws } from './resolution.js';
+export type { CriterionOutcome, ProbabilityCheck } from './resolution.js';
