@@ -68,6 +68,8 @@ export interface ReportSignOff {
   label: string;
   actor: { id: number | null; displayName: string | null };
   comment: string;
+  /** An approval given against failing checks: the written justification and what failed at that moment. */
+  override?: { justification: string; failing: { key: string; label: string }[] };
 }
 
 export interface RevisionReport {

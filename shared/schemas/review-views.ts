@@ -26,3 +26,17 @@ export interface TransitionAnswer {
   revision: RevisionSummary;
   mail?: MailOutcome;
 }
+
+/** One check a revision fails at approval time, computed by the server (key stable, label for people). */
+export interface FailingCheck {
+  key: string;
+  label: string;
+}
+
+/** What the approve form needs to know before asking: what fails, and whether this person may approve at all. */
+export interface ApprovalCheck {
+  failing: FailingCheck[];
+  /** Why this person may not approve (they created, edited, submitted or reopened it), or null. */
+  barred: string | null;
+  minJustificationChars: number;
+}

@@ -3,8 +3,19 @@ import { listQuerySchema } from './common.js';
 
 const comment = z.string({ error: 'comment must be text' }).trim().max(4000, { error: 'comment must be at most 4000 characters' });
 
-/** Approving may carry a comment. */
-export const approveSchema = z.strictObject({ comment: comment.default('') });
+/** Shortest written reason accepted for an override: a few words, not a single character. */
+export const MIN_JUSTIFICATION_CHARS = 20;
+
+/**
+ * Approving may carry a comment. Against failing checks it must also carry a justification and acknowledge
+ * each failing check by key; the server compares both with the checks it computes itself.
+ */
+export const approveSchema = z.strictObject({
+  comment: comment.default(''),
+  justification: z.string({ error: 'justification must be text' }).trim().max(4000, { error: 'justification must be at most 4000 characters' }).default(''),
+  acknowledged: z.array(z.string({ error: 'acknowledged must list check keys' }).max(120), { error: 'acknowledged must list check keys' })
+    .max(200, { error: 'acknowledged lists at most 200 checks' }).default([]),
+});
 export type ApproveBody = z.infer<typeof approveSchema>;
 
 /** Sending a revision back must say what to change. */

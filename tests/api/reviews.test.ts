@@ -119,7 +119,11 @@ describe('review workflow', () => {
     const own = await admin.post(`/api/revisions/${revisionId}/approve`).send({});
     expect(own.status).toBe(403);
     expect(own.body.error).toBe('you created revision A; someone else must approve it');
-    expect((await lead.post(`/api/revisions/${revisionId}/approve`).send({})).status).toBe(200);
+    // The default inputs' 30 % missing-capacitance case is not caught, so the lead approves with an override.
+    const { failing } = (await lead.get(`/api/revisions/${revisionId}/approval-check`)).body;
+    expect((await lead.post(`/api/revisions/${revisionId}/approve`).send({
+      justification: 'Accepted for the bench build; the fault case is covered by the bench check.', acknowledged: failing.map((f: { key: string }) => f.key),
+    })).status).toBe(200);
   });
 
   it('sends a revision back with a required comment, then reopens it as a draft', async () => {

@@ -123,6 +123,17 @@ function chainSection(pdf: PdfWriter, report: ReviewReport): void {
   }
 }
 
+/** Each approval given against failing checks: what failed then, and the approver's written justification. */
+function overrides(pdf: PdfWriter, report: ReviewReport): void {
+  for (const e of report.signOff) {
+    if (!e.override) continue;
+    pdf.paragraph(`Override: approved by ${e.actor.displayName ?? 'someone no longer on the team'} on ${when(e.at)} against ${e.override.failing.length === 1 ? 'a failing check' : `${e.override.failing.length} failing checks`}:`,
+      { bold: true, colour: COLOURS.red, size: 9 });
+    for (const f of e.override.failing) pdf.paragraph(`- ${f.label}`, { size: 9 });
+    pdf.paragraph(`Justification: ${e.override.justification}`, { size: 9 });
+  }
+}
+
 /** The review report as a PDF: caution, margin summary and charts, uncertainty, chains, sign-off. */
 export function renderReportPdf(report: ReviewReport): Promise<Buffer> {
   const pdf = new PdfWriter(`Review report: ${report.title}`);
@@ -141,6 +152,7 @@ export function renderReportPdf(report: ReviewReport): Promise<Buffer> {
   else {
     pdf.table([{ header: 'When', width: 110 }, { header: 'What', width: 110 }, { header: 'Who', width: 110 }, { header: 'Comment', width: pdf.width - 330 }],
       report.signOff.map((e) => [when(e.at), e.label, e.actor.displayName ?? '-', e.comment]));
+    overrides(pdf, report);
   }
   pdf.footer(`${report.title}  ·  High voltage: qualified people only. Tallyvolt checks arithmetic and certifies nothing.`);
   return pdf.finish();

@@ -12,7 +12,7 @@ import type { MarginStudyData } from '../margin/margin-study.js';
 import { HIGH_VOLTAGE_CAUTION } from './caution.js';
 import { chainStages } from './chain-rows.js';
 import { isoTime, isoTimeOrNull } from '../../common/iso-time.js';
-import type { ReportUncertaintyChannel, RevisionReport, RunHeader } from '../../../shared/schemas/report-views.js';
+import type { ReportSignOff, ReportUncertaintyChannel, RevisionReport, RunHeader } from '../../../shared/schemas/report-views.js';
 
 const ACTION_LABELS: Record<string, string> = {
   'revision.submit': 'Submitted for review',
@@ -96,9 +96,10 @@ export async function buildReport(dataSource: DataSource, revisionId: number, no
     signOff: events.map((e) => ({
       at: isoTime(e.at),
       action: e.action,
-      label: ACTION_LABELS[e.action] ?? e.action,
+      label: e.detail?.override ? 'Approved with an override' : ACTION_LABELS[e.action] ?? e.action,
       actor: { id: e.actorId, displayName: actors.find((a) => a.id === e.actorId)?.displayName ?? null },
       comment: typeof e.detail?.comment === 'string' ? e.detail.comment : '',
+      ...(e.detail?.override ? { override: e.detail.override as ReportSignOff['override'] } : {}),
     })),
     caution: HIGH_VOLTAGE_CAUTION,
   };

@@ -4,7 +4,7 @@ import type { AppDeps } from '../../common/deps.js';
 import { defineRoute, type RouteSpec } from '../../common/routes.js';
 import { DESIGN_READERS, DESIGN_WRITERS } from '../designs/designs.router.js';
 import { toRevisionSummary } from '../designs/designs.mapper.js';
-import { decideReview, listReviews, reopenRevision, submitForReview } from './reviews.service.js';
+import { approvalCheck, decideReview, listReviews, reopenRevision, submitForReview } from './reviews.service.js';
 import { publicBaseUrl } from '../../common/public-url.js';
 import type { MailOutcome, ReviewRow, TransitionAnswer } from '../../../shared/schemas/review-views.js';
 import type { Revision } from '../../entities/Revision.js';
@@ -27,16 +27,20 @@ export function revisionReviewRoutes({ dataSource, mailer, config }: AppDeps): R
     defineRoute({
       method: 'post', path: '/:id/approve', access: REVIEWERS, params: idParamSchema, body: approveSchema,
       handler: async ({ params, body, user, req, res }) => {
-        const { revision, mail } = await decideReview(dataSource, mailer, user!, params.id, 'approve', body.comment, publicBaseUrl(config, req));
+        const { revision, mail } = await decideReview(dataSource, mailer, user!, params.id, 'approve', body, publicBaseUrl(config, req));
         res.json(answer(revision, mail));
       },
     }),
     defineRoute({
       method: 'post', path: '/:id/request-changes', access: REVIEWERS, params: idParamSchema, body: requestChangesSchema,
       handler: async ({ params, body, user, req, res }) => {
-        const { revision, mail } = await decideReview(dataSource, mailer, user!, params.id, 'request-changes', body.comment, publicBaseUrl(config, req));
+        const { revision, mail } = await decideReview(dataSource, mailer, user!, params.id, 'request-changes', body, publicBaseUrl(config, req));
         res.json(answer(revision, mail));
       },
+    }),
+    defineRoute({
+      method: 'get', path: '/:id/approval-check', access: REVIEWERS, params: idParamSchema,
+      handler: async ({ params, user, res }) => { res.json(await approvalCheck(dataSource, user!, params.id)); },
     }),
     defineRoute({
       method: 'post', path: '/:id/reopen', access: DESIGN_WRITERS, params: idParamSchema,

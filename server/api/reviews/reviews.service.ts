@@ -1,9 +1,11 @@
 import { In, type DataSource } from 'typeorm';
 import type { RevisionState } from '../../../shared/schemas/designs.js';
 import { REVISION_STATE_LABELS } from '../../../shared/schemas/designs.js';
-import type { ReviewListQuery } from '../../../shared/schemas/reviews.js';
+import { MIN_JUSTIFICATION_CHARS, type ApproveBody, type ReviewListQuery } from '../../../shared/schemas/reviews.js';
+import { acknowledgesExactly, failingChecks } from './approval-checks.js';
+import { approvalBar } from './revision-authors.js';
 import { recordAudit } from '../../common/audit.js';
-import { ConflictError, ForbiddenError } from '../../common/errors.js';
+import { BadRequestError, ConflictError, ForbiddenError } from '../../common/errors.js';
 import type { Mailer, MailMessage } from '../../common/mail.js';
 import { AuditEvent } from '../../entities/AuditEvent.js';
 import { Revision } from '../../entities/Revision.js';
@@ -12,7 +14,7 @@ import { latestDoneRun, currentRunHash } from '../margin/margin.service.js';
 import { getRevision } from '../revisions/revisions.service.js';
 import { decisionMessage, submittedMessage } from './reviews.mail.js';
 import { isoTime } from '../../common/iso-time.js';
-import type { MailOutcome } from '../../../shared/schemas/review-views.js';
+import type { ApprovalCheck, MailOutcome } from '../../../shared/schemas/review-views.js';
 import type { MarginVerdict } from '../../../shared/schemas/margin.js';
 
 /** Audit actions of the review workflow, oldest first in a revision's history. */
@@ -42,6 +44,7 @@ export async function missingStudies(dataSource: DataSource, revision: Revision)
  */
 async function transition(
   dataSource: DataSource, actor: User, revisionId: number, from: RevisionState[], to: RevisionState, action: ReviewAction, comment: string,
+  extra: Record<string, unknown> = {},
 ): Promise<Revision> {
   await dataSource.transaction(async (m) => {
     const revision = await getRevision(m, revisionId);
@@ -50,7 +53,7 @@ async function transition(
     }
     const changed = await m.getRepository(Revision).update({ id: revisionId, state: In(from) }, { state: to, updatedAt: new Date() });
     if (!changed.affected) throw new ConflictError(`revision ${revision.letter} changed state meanwhile; reload it`);
-    await recordAudit(m, actor.id, action, `revision:${revisionId}`, { from: revision.state, to, ...(comment ? { comment } : {}) });
+    await recordAudit(m, actor.id, action, `revision:${revisionId}`, { from: revision.state, to, ...(comment ? { comment } : {}), ...extra });
   });
   return getRevision(dataSource, revisionId);
 }
@@ -88,18 +91,44 @@ export async function submitForReview(dataSource: DataSource, mailer: Mailer, ac
   return { revision: submitted, mail };
 }
 
-function assertNotAuthor(actor: User, revision: Revision, verb: string): void {
-  if (revision.createdById === actor.id) throw new ForbiddenError(`you created revision ${revision.letter}; someone else must ${verb} it`);
+/** What the approve form shows before asking: the failing checks and whether this person may approve. */
+export async function approvalCheck(dataSource: DataSource, actor: User, revisionId: number): Promise<ApprovalCheck> {
+  const revision = await getRevision(dataSource, revisionId);
+  return { failing: await failingChecks(dataSource, revision), barred: await approvalBar(dataSource, revision, actor.id), minJustificationChars: MIN_JUSTIFICATION_CHARS };
+}
+
+/**
+ * Nobody who took part in the work approves it, whatever their role. Against failing checks the approval must
+ * carry a written justification and acknowledge exactly the checks the server finds failing now; both are stored
+ * with the approval as an override.
+ */
+async function approvalOverride(dataSource: DataSource, actor: User, revision: Revision, body: ApproveBody): Promise<Record<string, unknown>> {
+  const bar = await approvalBar(dataSource, revision, actor.id);
+  if (bar) throw new ForbiddenError(bar);
+  const failing = await failingChecks(dataSource, revision);
+  if (!failing.length) return {};
+  const named = failing.map((f) => f.label).join('; ');
+  if (body.justification.length < MIN_JUSTIFICATION_CHARS) {
+    throw new BadRequestError(`revision ${revision.letter} fails ${failing.length === 1 ? 'a check' : `${failing.length} checks`} (${named}); approving it needs a written justification`,
+      { justification: `justification is required to approve against failing checks: at least ${MIN_JUSTIFICATION_CHARS} characters saying why` });
+  }
+  if (!acknowledgesExactly(body.acknowledged, failing)) {
+    throw new BadRequestError(`acknowledged must name exactly the checks that fail now: ${failing.map((f) => f.key).join(', ')}`,
+      { acknowledged: `acknowledged must name exactly the failing checks: ${named}` });
+  }
+  return { override: { justification: body.justification, failing } };
 }
 
 /** Approves or sends back a revision in review; the revision's creator and the design owner are told. */
 export async function decideReview(
-  dataSource: DataSource, mailer: Mailer, actor: User, revisionId: number, decision: 'approve' | 'request-changes', comment: string, baseUrl: string,
+  dataSource: DataSource, mailer: Mailer, actor: User, revisionId: number, decision: 'approve' | 'request-changes', body: ApproveBody | { comment: string }, baseUrl: string,
 ): Promise<TransitionResult> {
+  const { comment } = body;
   const before = await getRevision(dataSource, revisionId);
-  assertNotAuthor(actor, before, decision === 'approve' ? 'approve' : 'review');
+  // Sending one's own work back is harmless (it only returns it to draft), so only approval is barred to its authors.
   const revision = decision === 'approve'
-    ? await transition(dataSource, actor, revisionId, ['in_review'], 'approved', 'revision.approve', comment)
+    ? await transition(dataSource, actor, revisionId, ['in_review'], 'approved', 'revision.approve', comment,
+      before.state === 'in_review' ? await approvalOverride(dataSource, actor, before, body as ApproveBody) : {})
     : await transition(dataSource, actor, revisionId, ['in_review'], 'changes_requested', 'revision.request-changes', comment);
   const recipients = await dataSource.getRepository(User).find({ where: { id: In([revision.createdById, revision.design.ownerId]), active: true }, order: { id: 'ASC' } });
   const link = reviewLink(baseUrl, revisionId);

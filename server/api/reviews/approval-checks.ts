@@ -1,0 +1,51 @@
+import type { DataSource } from 'typeorm';
+import type { MarginStudyResult } from '../../../shared/schemas/margin.js';
+import type { FailingCheck } from '../../../shared/schemas/review-views.js';
+import { calibrationOverview } from '../calibration/calibration-overview.js';
+import { currentRunHash, latestDoneRun } from '../margin/margin.service.js';
+import type { Revision } from '../../entities/Revision.js';
+
+const STUDY_NAMES = { uncertainty: 'uncertainty study', margin: 'margin study' } as const;
+
+/**
+ * Every check the revision fails right now, computed here and never taken from the client: the margin
+ * study's criteria and fault cases, studies missing or not current, and built boards outside the design's spread.
+ */
+export async function failingChecks(dataSource: DataSource, revision: Revision): Promise<FailingCheck[]> {
+  const failing: FailingCheck[] = [];
+  for (const kind of ['uncertainty', 'margin'] as const) {
+    const run = await latestDoneRun(dataSource, revision.id, kind);
+    if (!run) {
+      failing.push({ key: `study-missing:${kind}`, label: `No finished ${STUDY_NAMES[kind]}` });
+      continue;
+    }
+    if (run.inputsHash !== await currentRunHash(dataSource, revision, kind)) {
+      failing.push({ key: `study-stale:${kind}`, label: `The ${STUDY_NAMES[kind]} (study ${run.id}) is not current: it used older inputs` });
+    }
+    if (kind === 'margin' && run.result) {
+      const result = run.result as unknown as MarginStudyResult;
+      const faultKeys = new Set(result.faults.map((f) => f.key));
+      for (const row of result.summary.filter((c) => !c.pass)) {
+        failing.push(faultKeys.has(row.key)
+          ? { key: `fault:${row.key}`, label: `Fault detection fails: ${row.criterion.replace(/^Fault caught: /, '')} is not caught` }
+          : { key: `margin:${row.key}`, label: `Margin fails: ${row.criterion}` });
+      }
+    }
+  }
+  for (const channel of revision.channels) {
+    const overview = await calibrationOverview(dataSource, revision.id, channel.key);
+    for (const board of overview.boards.filter((b) => b.within === false)) {
+      failing.push({
+        key: `board:${board.boardId}:${channel.key}`,
+        label: `Board ${board.serialNumber}, ${overview.channelName}: outside the design's spread`,
+      });
+    }
+  }
+  return failing;
+}
+
+/** True when the acknowledged keys name exactly the failing checks (order and repeats aside). */
+export function acknowledgesExactly(acknowledged: readonly string[], failing: readonly FailingCheck[]): boolean {
+  const given = new Set(acknowledged);
+  return given.size === failing.length && failing.every((f) => given.has(f.key));
+}
