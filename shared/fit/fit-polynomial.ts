@@ -9,7 +9,9 @@ import type { PolynomialFit, PolynomialFitOptions } from './polynomial-fit-types
 import { residualDiagnostics } from './residual-diagnostics.js';
 
 function checkInputs(x: readonly number[], y: readonly number[], options: PolynomialFitOptions): number[] {
-  const { degree, intercept = true, weights } = options;
+  const { degree, intercept = true, weights, weighting = 'relative' } = options;
+  if (weighting !== 'relative' && weighting !== 'absolute') throw new Error("weighting must be 'relative' or 'absolute'");
+  if (weighting === 'absolute' && weights === undefined) throw new Error('absolute weighting needs a weight per point');
   if (degree !== 1 && degree !== 2 && degree !== 3) throw new Error('degree must be 1, 2 or 3');
   if (x.length !== y.length) throw new Error('x and y differ in length');
   const parameterCount = intercept ? degree + 1 : degree;
@@ -44,11 +46,13 @@ function chooseBasis(x: readonly number[], weights: readonly number[], degree: n
 
 /**
  * Least-squares polynomial y ≈ Σ b_k x^k minimising Σ wᵢ(yᵢ − ŷᵢ)², with standard errors
- * s·√diag((AᵀWA)⁻¹), R², leverages and studentised residuals (as certified by NIST StRD).
+ * s·√diag((AᵀWA)⁻¹) for relative weights (as certified by NIST StRD) or √diag((AᵀWA)⁻¹) for absolute ones
+ * (weights 1/u² with u known; e.g. Bevington & Robinson, Data Reduction and Error Analysis, §6.4), R²,
+ * leverages and studentised residuals.
  * @param x abscissae, e.g. applied volts (V)
  * @param y ordinates, e.g. measured frequency (Hz)
- * @param options degree 1–3, intercept (default true), weights > 0 (default 1)
- * @throws Error on a bad degree, length mismatch, too few or too few distinct points, bad weights
+ * @param options degree 1–3, intercept (default true), weights > 0 (default 1), weighting (default 'relative')
+ * @throws Error on a bad degree, length mismatch, too few or too few distinct points, bad weights or weighting
  * @example fitPolynomial([0, 1, 2, 3], [1, 3, 5, 7.1], { degree: 1 }).coefficients // ≈ [0.98, 2.03]
  */
 export function fitPolynomial(x: readonly number[], y: readonly number[], options: PolynomialFitOptions): PolynomialFit {
@@ -65,10 +69,13 @@ export function fitPolynomial(x: readonly number[], y: readonly number[], option
   const parameterCount = basis.powers.length;
   const residualDegreesOfFreedom = x.length - parameterCount;
   const variance = residualSumOfSquares / residualDegreesOfFreedom;
-  // Cov(β) = s²·R⁻¹R⁻ᵀ; column k of R⁻¹ solves R z = e_k
+  const weighting = options.weighting ?? 'relative';
+  // Absolute weights are 1/u² with u known, so (AᵀWA)⁻¹ is the covariance itself; relative ones learn the scale from the residuals.
+  const covarianceScale = weighting === 'absolute' ? 1 : variance;
+  // Cov(β) = scale·R⁻¹R⁻ᵀ; column k of R⁻¹ solves R z = e_k
   const rInverse = basis.powers.map((_, k) => solveUpper(r, basis.powers.map((__, j) => (j === k ? 1 : 0))));
   const scaledCovariance = basis.powers.map((_, i) =>
-    basis.powers.map((__, j) => variance * rInverse.reduce((sum, column) => sum + column[i] * column[j], 0)),
+    basis.powers.map((__, j) => covarianceScale * rInverse.reduce((sum, column) => sum + column[i] * column[j], 0)),
   );
   const mapping = powerMapping(basis, degree);
   const coefficients = mapping.map((row) => row.reduce((sum, t, k) => sum + t * solution[k], 0));
@@ -96,6 +103,9 @@ export function fitPolynomial(x: readonly number[], y: readonly number[], option
     standardErrors: covariance.map((row, k) => Math.sqrt(Math.max(row[k], 0))),
     covariance,
     residualStandardDeviation: Math.sqrt(variance),
+    weighting,
+    uncertaintyScale: Math.sqrt(covarianceScale),
+    covarianceDegreesOfFreedom: weighting === 'absolute' ? Infinity : residualDegreesOfFreedom,
     residualSumOfSquares,
     rSquared: totalSumOfSquares > 0 ? 1 - residualSumOfSquares / totalSumOfSquares : 1,
     fittedValues,

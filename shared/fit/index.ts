@@ -6,5 +6,11 @@ export { inverseLine, invertFit, fitInversePolynomial } from './invert-polynomia
 export type { InverseLine } from './invert-polynomial.js';
 export { householderLeastSquares, solveUpper, solveUpperTransposed } from './householder-qr.js';
 export type { QrLeastSquares } from './householder-qr.js';
-export { lineUncertainty, readingUncertainty, referenceDivisor } from './reading-uncertainty.js';
-export type { ReadingUncertainty, ReferenceAccuracy } from './reading-uncertainty.js';
+export { lineUncertainty, readingUncertainty } from './reading-uncertainty.js';
+export type { LineUncertainty, ReadingOptions, ReadingUncertainty } from './reading-uncertainty.js';
+export { referenceDivisor, referenceShare, referenceShareAt } from './reference-share.js';
+export type { ReferenceAccuracy, ReferenceShare } from './reference-share.js';
+export { interpolatedUncertainty } from './new-reading-uncertainty.js';
+export { combinedDecision, guardedAcceptanceRule, guardedDecision } from './guarded-acceptance.js';
+export type { AcceptanceDecision, GuardedDecision } from './guarded-acceptance.js';
+export { withCommonReferenceError } from './reference-samples.js';

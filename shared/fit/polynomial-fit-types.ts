@@ -11,6 +11,12 @@ export interface PolynomialFitOptions {
   intercept?: boolean;
   /** weight per point, > 0, proportional to 1/variance (default all 1) */
   weights?: readonly number[];
+  /**
+   * How the weights are read (default 'relative'): 'relative' weights fix only the points' proportions, so the
+   * covariance is scaled by s² = χ²/ν; 'absolute' weights are 1/u² with u known standard uncertainties, so the
+   * covariance is (AᵀWA)⁻¹ as it stands and its degrees of freedom are infinite.
+   */
+  weighting?: 'relative' | 'absolute';
 }
 
 /** A fitted polynomial y = Σ b_k x^k with its statistics. */
@@ -29,8 +35,14 @@ export interface PolynomialFit {
   standardErrors: number[];
   /** covariance of b_0…b_degree, (degree+1)×(degree+1) */
   covariance: number[][];
-  /** s = √(Σ wᵢeᵢ² / ν), unit of y (at unit weight) */
+  /** s = √(Σ wᵢeᵢ² / ν), unit of y (at unit weight); with wᵢ = 1/uᵢ² this is the Birge ratio √(χ²/ν) */
   residualStandardDeviation: number;
+  /** how the weights were read */
+  weighting: 'relative' | 'absolute';
+  /** the factor on √((AᵀWA)⁻¹) in every standard error: s for relative weights, 1 for absolute */
+  uncertaintyScale: number;
+  /** degrees of freedom of the covariance: ν = n − p for relative weights, Infinity for absolute */
+  covarianceDegreesOfFreedom: number;
   /** Σ wᵢeᵢ² */
   residualSumOfSquares: number;
   /** centred 1 − SSE/Σw(y − ȳ)² with intercept; uncentred 1 − SSE/Σwy² without */

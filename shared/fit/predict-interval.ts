@@ -36,7 +36,8 @@ export function predictValue(fit: PolynomialFit, x: number): number {
 /**
  * Interval ŷ ± t·s·√(g) at x, with g = aᵀ(AᵀWA)⁻¹a for the mean response ('confidence') and
  * g + 1/w₀ for a new observation of weight w₀ ('prediction'); for a straight line with intercept
- * this is ŷ ± t·s·√(1/n + (x − x̄)²/Sxx) and ŷ ± t·s·√(1 + 1/n + (x − x̄)²/Sxx).
+ * this is ŷ ± t·s·√(1/n + (x − x̄)²/Sxx) and ŷ ± t·s·√(1 + 1/n + (x − x̄)²/Sxx). With absolute
+ * weights s is 1 (the weights are 1/u² with u known) and t becomes the normal quantile (ν = ∞).
  * @param fit a result of fitPolynomial
  * @param x abscissa, unit of the fitted x
  * @param level coverage probability, 0 < level < 1 (e.g. 0.95)
@@ -59,8 +60,8 @@ export function predictInterval(
   const z = solveUpperTransposed(fit.r, basisRow(fit.basis, x));
   const meanFactor = z.reduce((sum, entry) => sum + entry * entry, 0);
   const factor = kind === 'prediction' ? meanFactor + 1 / observationWeight : meanFactor;
-  const standardError = fit.residualStandardDeviation * Math.sqrt(factor);
-  const coverageFactor = studentTQuantile((1 + level) / 2, fit.residualDegreesOfFreedom);
+  const standardError = fit.uncertaintyScale * Math.sqrt(factor);
+  const coverageFactor = studentTQuantile((1 + level) / 2, fit.covarianceDegreesOfFreedom);
   const halfWidth = coverageFactor * standardError;
   return { x, fitted, standardError, coverageFactor, low: fitted - halfWidth, high: fitted + halfWidth };
 }

@@ -2,6 +2,7 @@ import type { CalibrationPointBody, CalibrationState, CsvMapping, FitSettings, R
 import type { PersonRef } from './design-views.js';
 import type { RowProblem } from './common.js';
 import type { ReadingUncertainty } from '../fit/reading-uncertainty.js';
+import type { AcceptanceDecision, GuardedDecision } from '../fit/guarded-acceptance.js';
 
 export type { RowProblem };
 
@@ -14,6 +15,10 @@ export interface FitView {
   coefficients: number[];
   standardErrors: number[];
   residualStandardDeviationHz: number;
+  /** How the weights were read ('relative' also for an unweighted fit, whose weights are all 1). */
+  weighting: 'relative' | 'absolute';
+  /** √(χ²/ν) with χ² = Σ(eᵢ/uᵢ)², for a weighted fit; near 1 when the stated u match the scatter. */
+  birgeRatio: number | null;
   rSquared: number;
   degreesOfFreedom: number;
   /** Per stored point (excluded ones too): residual and studentised residual, null when excluded. */
@@ -22,7 +27,11 @@ export interface FitView {
   band: { appliedV: number; fittedHz: number; confidenceLowHz: number; confidenceHighHz: number; predictionLowHz: number; predictionHighHz: number }[];
   /** The firmware's form, volts = Σ c_k·f^k: exact for degree 1, a least-squares inverse for 2–3. */
   inverse: { coefficients: number[]; exact: boolean; maxInverseErrorV: number };
-  /** Uncertainty of a voltage read back through this fit (fit and a new reading's scatter, and the reference), 95 %. */
+  /**
+   * Uncertainty of a voltage read back through this fit, 95 %: the fit and a new reading's scatter (its own u(f),
+   * interpolated over the bench points' frequencies, for a weighted fit), the reference, and the inverse polynomial's
+   * largest departure for degrees 2–3.
+   */
   readingUncertainty: ReadingUncertainty[];
   rangeV: { min: number; max: number };
   rangeHz: { min: number; max: number };
@@ -48,11 +57,23 @@ export interface BoardComparison {
   population: DesignPopulation;
   /** The board's gain error (fraction) and offset error (V), with their expanded uncertainties at coverageFactor. */
   board: { gainError: number; offsetErrorV: number; gainErrorExpanded: number; offsetErrorExpandedV: number; coverageFactor: number };
+  /** The estimates alone inside the design's interval (no guard band): where the charts place the board. */
   gainWithin: boolean;
   offsetWithin: boolean;
   within: boolean;
-  /** The board's own uncertainty interval reaches across a limit of the design's interval. */
+  /** The guarded decision is undecided: a quantity lies in a guard band. */
   undecided: boolean;
+  /** Guarded acceptance (JCGM 106:2012 §8) of each quantity and of the board, with the rule as stated. */
+  acceptance: {
+    rule: string;
+    decision: AcceptanceDecision;
+    gain: GuardedDecision;
+    offset: GuardedDecision;
+    /** Probability that the board does not conform, at most (Bonferroni over gain and offset). */
+    nonConformanceAtMost: number;
+  };
+  /** The reference instrument's share of the board's standard uncertainties (one common error, so correlated). */
+  referenceShare: { gainFraction: number; offsetV: number };
   likelyCauses: string[];
 }
 
@@ -130,5 +151,7 @@ export interface CalibrationOverview {
   channelKey: string;
   channelName: string;
   population: DesignPopulation;
-  boards: { boardId: number; serialNumber: string; sessionId: number | null; gainError: number | null; offsetErrorV: number | null; within: boolean | null }[];
+  boards: { boardId: number; serialNumber: string; sessionId: number | null; gainError: number | null; offsetErrorV: number | null; within: boolean | null;
+    /** Guarded acceptance against the design's interval; null without a completed session. */
+    decision: AcceptanceDecision | null }[];
 }

@@ -25,6 +25,11 @@ export const fitSettingsSchema = z.strictObject({
   intercept: z.boolean({ error: 'intercept must be true or false' }).default(true),
   /** Weight points by 1/u² when they carry a standard uncertainty. */
   weighted: z.boolean({ error: 'weighted must be true or false' }).default(true),
+  /**
+   * How the u of a weighted fit are read: 'absolute' (known standard uncertainties: covariance (AᵀWA)⁻¹, no
+   * rescaling) or 'relative' (only their proportions: scaled by χ²/ν, the Birge ratio squared). Absent means relative.
+   */
+  weighting: z.enum(['relative', 'absolute'], { error: 'weighting must be relative or absolute' }).optional(),
 });
 export type FitSettings = z.infer<typeof fitSettingsSchema>;
 

@@ -19,12 +19,12 @@ export async function calibrationOverview(dataSource: DataSource, revisionId: nu
   for (const board of boards) {
     const latest = sessions.find((s) => s.boardId === board.id);
     if (!latest) {
-      rows.push({ boardId: board.id, serialNumber: board.serialNumber, sessionId: null, gainError: null, offsetErrorV: null, within: null });
+      rows.push({ boardId: board.id, serialNumber: board.serialNumber, sessionId: null, gainError: null, offsetErrorV: null, within: null, decision: null });
       continue;
     }
     const session = await getSession(dataSource, latest.id);
     const c = compareBoard(channel.definition, session.ambientC, session.points, session.reference);
-    rows.push({ boardId: board.id, serialNumber: board.serialNumber, sessionId: session.id, gainError: c.board.gainError, offsetErrorV: c.board.offsetErrorV, within: c.within });
+    rows.push({ boardId: board.id, serialNumber: board.serialNumber, sessionId: session.id, gainError: c.board.gainError, offsetErrorV: c.board.offsetErrorV, within: c.within, decision: c.acceptance.decision });
   }
   return { channelKey, channelName: channel.definition.name, population: designPopulation(channel.definition, channel.definition.environment.referenceC), boards: rows };
 }

@@ -1,10 +1,17 @@
 import type { MailMessage } from '../../common/mail.js';
+import type { AcceptanceDecision } from '../../../shared/fit/index.js';
+
+const VERDICTS: Record<AcceptanceDecision, string> = {
+  accept: 'accepted against the design spread (guarded acceptance)',
+  undecided: 'UNDECIDED against the design spread (in a guard band)',
+  reject: 'REJECTED: outside the design spread',
+};
 
 export function sessionCompleteMessage(opts: {
   to: string; serialNumber: string; channelName: string; designName: string; revisionLetter: string; testerName: string;
-  within: boolean | null; summary: string; link: string;
+  decision: AcceptanceDecision | null; summary: string; link: string;
 }): MailMessage {
-  const verdict = opts.within === null ? 'not compared with the design' : opts.within ? 'within the design spread' : 'OUTSIDE the design spread';
+  const verdict = opts.decision === null ? 'not compared with the design' : VERDICTS[opts.decision];
   const text = [
     `${opts.testerName} completed a calibration of board ${opts.serialNumber}, ${opts.channelName}`,
     `(${opts.designName}, revision ${opts.revisionLetter}).`,

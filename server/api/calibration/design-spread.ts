@@ -1,7 +1,9 @@
 import { dividerNominal, nominalFrequencyHz } from '../../../shared/chain/index.js';
 import { readingErrorSamples } from '../../../shared/precharge/index.js';
 import { histogramOf } from '../../../shared/propagation/index.js';
-import { fitPolynomial, lineUncertainty, type ReferenceAccuracy } from '../../../shared/fit/index.js';
+import {
+  combinedDecision, fitPolynomial, guardedAcceptanceRule, guardedDecision, lineUncertainty, referenceShare, type ReferenceAccuracy,
+} from '../../../shared/fit/index.js';
 import type { ChannelDefinition } from '../../../shared/schemas/chain.js';
 import type { BoardComparison, DesignPopulation, Spread } from '../../../shared/schemas/calibration-views.js';
 import type { CalibrationPoint } from '../../entities/CalibrationPoint.js';
@@ -47,18 +49,21 @@ const BOARD_K = 2;
 /**
  * Where a board's own calibration falls against its design's population. The board's straight-line fit
  * f = b0 + b1·V read with the design's nominal constants gives g = b1/G − 1 and o = (b0 − f0)/G. Their
- * uncertainty combines the fit's standard errors with the reference instrument, whose error every point
- * shares (its % of reading moves g, its volts move o); the verdict itself compares the estimates.
+ * uncertainty combines the fit's standard errors with the reference instrument's share as the line carries it
+ * (one bound at each voltage, common to every point: its projection onto the line, reference-share.ts). The
+ * decision is guarded acceptance (JCGM 106:2012 §8) with a guard band of the board's expanded uncertainty at
+ * k = 2 inside each limit of the design's interval.
  */
 export function compareBoard(
   channel: ChannelDefinition, ambientC: number, points: readonly CalibrationPoint[], reference: ReferenceAccuracy,
 ): BoardComparison {
   const used = points.filter((p) => !p.excluded);
-  const line = fitPolynomial(used.map((p) => p.appliedV), used.map((p) => p.frequencyHz), { degree: 1 });
+  const volts = used.map((p) => p.appliedV);
+  const line = fitPolynomial(volts, used.map((p) => p.frequencyHz), { degree: 1 });
   const ratio = dividerNominal(channel.divider, channel.converter.inputResistanceOhm).ratio;
   const f0 = nominalFrequencyHz(channel.converter, ratio, 0);
   const gainHzPerV = nominalFrequencyHz(channel.converter, ratio, 1) - f0;
-  const u = lineUncertainty(line.standardErrors, gainHzPerV, reference);
+  const u = lineUncertainty(line.standardErrors, gainHzPerV, referenceShare(volts, reference, { degree: 1 }));
   const board = {
     gainError: line.coefficients[1] / gainHzPerV - 1,
     offsetErrorV: (line.coefficients[0] - f0) / gainHzPerV,
@@ -70,12 +75,13 @@ export function compareBoard(
   const inside = (v: number, s: Spread) => v >= s.low && v <= s.high;
   const gainWithin = inside(board.gainError, population.gainError);
   const offsetWithin = inside(board.offsetErrorV, population.offsetErrorV);
-  // Undecided when the board's own interval reaches across a limit of the design's interval.
-  const straddles = (v: number, u: number, s: Spread) => inside(v - u, s) !== inside(v + u, s) || (v - u < s.low && v + u > s.high);
-  const undecided = straddles(board.gainError, board.gainErrorExpanded, population.gainError)
-    || straddles(board.offsetErrorV, board.offsetErrorExpandedV, population.offsetErrorV);
+  const gain = guardedDecision(board.gainError, u.gainFraction, BOARD_K, population.gainError.low, population.gainError.high);
+  const offset = guardedDecision(board.offsetErrorV, u.offsetV, BOARD_K, population.offsetErrorV.low, population.offsetErrorV.high);
+  const overall = combinedDecision([gain, offset]);
   return {
-    population, board, gainWithin, offsetWithin, within: gainWithin && offsetWithin, undecided,
+    population, board, gainWithin, offsetWithin, within: gainWithin && offsetWithin, undecided: overall.decision === 'undecided',
+    acceptance: { rule: guardedAcceptanceRule(BOARD_K), decision: overall.decision, gain, offset, nonConformanceAtMost: overall.nonConformanceAtMost },
+    referenceShare: u.reference,
     likelyCauses: likelyCauses(board, population, gainWithin, offsetWithin),
   };
 }

@@ -1,4 +1,8 @@
 import type { FitView } from '../../../shared/schemas/calibration-views.js';
+import { fixedPointForm } from '../../../shared/fit/fixed-point.js';
+import { ConflictError } from '../../common/errors.js';
+import { commentText, floatLiteral, identifierPart, stringLiteral } from './c-text.js';
+import { boundText, cReadingCode } from './c-reading.js';
 
 export interface ExportContext {
   serialNumber: string;
@@ -13,61 +17,53 @@ export interface ExportContext {
   testerName: string;
 }
 
-const identifier = (s: string) => s.toUpperCase().replace(/[^A-Z0-9]+/g, '_').replace(/^_|_$/g, '');
-/** Nine significant digits: enough to give back the same single-precision float. */
-const floatLiteral = (v: number) => {
-  const text = v.toPrecision(9);
-  return `${/[.eE]/.test(text) ? text : `${text}.0`}f`;
-};
-
-/** Fixed-point form: coefficient = q / 2^shift with q a signed 32-bit integer and the shift as large as fits. */
-export function scaledInteger(value: number): { q: number; shift: number } {
-  if (value === 0) return { q: 0, shift: 0 };
-  const shift = Math.max(0, Math.min(62, 30 - Math.ceil(Math.log2(Math.abs(value)))));
-  const q = Math.round(value * 2 ** shift);
-  return Math.abs(q) > 2 ** 31 - 1 ? { q: Math.round(value * 2 ** (shift - 1)), shift: shift - 1 } : { q, shift };
+/** The float literals and the fixed-point form of the reading, or a 409 saying why this fit has none. */
+function readingForms(fit: FitView) {
+  try {
+    return { literals: fit.inverse.coefficients.map(floatLiteral), fixed: fixedPointForm(fit.inverse.coefficients, fit.rangeHz) };
+  } catch (e) {
+    throw new ConflictError(`this fit cannot be exported for firmware: ${(e as Error).message}`);
+  }
 }
-
-const safeComment = (s: string) => s.replace(/\*\//g, '* /').replace(/[\r\n]+/g, ' ');
 
 const uncertaintyLine = (fit: FitView) =>
   fit.readingUncertainty.map((u) => `+-${u.expandedV.toPrecision(2)} V at ${u.appliedV.toPrecision(4)} V`).join(', ');
 
 /**
- * A C header for the firmware: volts = Σ c_k·f^k with f in hertz, as `static const float` and as scaled
- * 32-bit integers (c_k = q_k / 2^shift_k), with the valid input range. Everything is prefixed by the channel
- * so headers of several channels can be included together.
+ * A C header for the firmware: volts = Σ c_k·f^k with f in hertz as `static const float`, the same reading in
+ * integers only (normalised frequency, Horner's rule in int64, see shared/fit/fixed-point.ts) with its largest
+ * departure, ready-made static inline reading functions for both, and the valid input range. Everything is
+ * prefixed by the channel so headers of several channels can be included together; names people typed appear
+ * only as comment text or escaped string literals, so the header compiles whatever they hold.
  */
 export function cHeader(ctx: ExportContext, fit: FitView): string {
-  const p = `TV_${identifier(ctx.channelKey)}`;
+  const p = `TV_${identifierPart(ctx.channelKey)}`;
   const lower = p.toLowerCase();
-  const guard = `TALLYVOLT_CAL_${identifier(ctx.serialNumber)}_${identifier(ctx.channelKey)}_H`;
-  const coeffs = fit.inverse.coefficients;
-  const scaled = coeffs.map(scaledInteger);
+  const guard = `TALLYVOLT_CAL_${identifierPart(ctx.serialNumber)}_${identifierPart(ctx.channelKey)}_H`;
+  const { literals, fixed } = readingForms(fit);
   return `/*
  * Tallyvolt calibration coefficients. Generated file: do not edit by hand.
- * Board ${safeComment(ctx.serialNumber)}, design "${safeComment(ctx.designName)}" revision ${ctx.revisionLetter}, channel ${safeComment(ctx.channelKey)} (${safeComment(ctx.channelName)}).
- * Calibration session ${ctx.sessionId} on ${ctx.performedOn} by ${safeComment(ctx.testerName)} at ${ctx.ambientC.toFixed(1)} degC; session state: ${ctx.state}.
- * Reading: volts = sum over k of ${lower}_coeff[k] * f^k, with f the measured frequency in Hz.
+ * Board ${commentText(ctx.serialNumber)}, design "${commentText(ctx.designName)}" revision ${commentText(ctx.revisionLetter)}, channel ${commentText(ctx.channelKey)} (${commentText(ctx.channelName)}).
+ * Calibration session ${ctx.sessionId} on ${commentText(ctx.performedOn)} by ${commentText(ctx.testerName)} at ${ctx.ambientC.toFixed(1)} degC; session state: ${commentText(ctx.state)}.
+ * Reading: volts = sum over k of ${lower}_coeff[k] * f^k, with f the measured frequency in Hz (${lower}_volts_float).
  * ${fit.inverse.exact ? 'Exact inverse of the fitted straight line.' : `Least-squares inverse of the degree ${fit.settings.degree} fit; its largest departure is ${fit.inverse.maxInverseErrorV.toExponential(2)} V.`}
- * Fixed point: coefficient k = ${lower}_coeff_q[k] / 2^${lower}_coeff_shift[k].
+ * Fixed point (${lower}_volts_fixed, integers only): the input is f x 2^${fixed.frequencyFracBits} as a uint32_t; u = (input - ${p}_MID_FX) / ${p}_HALF_FX
+ * in Q${fixed.uFracBits}, within -1..1 over the calibrated range; volts = sum over k of ${lower}_u_q[k] / 2^${lower}_u_shift[k] * u^k by Horner's
+ * rule in int64, each coefficient with 30 significant bits, the result in units of 2^-${fixed.voltsFracBits} V.
+ * Largest fixed-point departure from the float form (the sum above in exact arithmetic with the fitted coefficients) over the
+ * calibrated range: at most ${boundText(fixed.maxDepartureV)} V (a bound from the rounding steps); the largest at ${fixed.gridPoints} inputs computed exactly is ${fixed.largestFoundV.toPrecision(2)} V.
  * Valid input: ${fit.rangeV.min} V to ${fit.rangeV.max} V (${fit.rangeHz.min.toPrecision(6)} Hz to ${fit.rangeHz.max.toPrecision(6)} Hz); outside it the fit is extrapolated.
- * Expanded uncertainty (95 %) of one reading, fit and reference, before drift: ${uncertaintyLine(fit)}.
+ * Expanded uncertainty (95 %) of one reading, before drift: the fit and a new reading's scatter, the reference${fit.inverse.exact ? '' : ' and the inverse polynomial\'s largest departure (as a rectangular bound)'}: ${uncertaintyLine(fit)}.
  */
 #ifndef ${guard}
 #define ${guard}
 
 #include <stdint.h>
 
-#define ${p}_BOARD_SERIAL "${ctx.serialNumber.replace(/["\\]/g, '')}"
-#define ${p}_REVISION "${ctx.revisionLetter}"
-#define ${p}_CAL_DATE "${ctx.performedOn}"
-#define ${p}_COEFF_COUNT ${coeffs.length}
-
-static const float ${lower}_coeff[${coeffs.length}] = { ${coeffs.map(floatLiteral).join(', ')} };
-static const int32_t ${lower}_coeff_q[${coeffs.length}] = { ${scaled.map((s) => `${s.q}`).join(', ')} };
-static const uint8_t ${lower}_coeff_shift[${coeffs.length}] = { ${scaled.map((s) => `${s.shift}u`).join(', ')} };
-
+#define ${p}_BOARD_SERIAL ${stringLiteral(ctx.serialNumber)}
+#define ${p}_REVISION ${stringLiteral(ctx.revisionLetter)}
+#define ${p}_CAL_DATE ${stringLiteral(ctx.performedOn)}
+${cReadingCode(p, literals, fixed)}
 static const float ${lower}_min_v = ${floatLiteral(fit.rangeV.min)};
 static const float ${lower}_max_v = ${floatLiteral(fit.rangeV.max)};
 static const float ${lower}_min_hz = ${floatLiteral(fit.rangeHz.min)};
@@ -77,11 +73,15 @@ static const float ${lower}_max_hz = ${floatLiteral(fit.rangeHz.max)};
 `;
 }
 
-/** The same coefficients as JSON, with the forward fit and its statistics for records. */
+/**
+ * The same coefficients as JSON, with the forward fit and its statistics for records. Version 2: the fixed-point
+ * form moved from reading.scaled (coefficients of f) to reading.fixedPoint (coefficients of the normalised u).
+ */
 export function jsonExport(ctx: ExportContext, fit: FitView) {
+  const { fixed } = readingForms(fit);
   return {
     format: 'tallyvolt-calibration',
-    version: 1,
+    version: 2,
     board: ctx.serialNumber,
     design: ctx.designName,
     revision: ctx.revisionLetter,
@@ -91,13 +91,19 @@ export function jsonExport(ctx: ExportContext, fit: FitView) {
       form: 'volts = sum(coefficients[k] * f^k), f in Hz',
       coefficients: fit.inverse.coefficients,
       exact: fit.inverse.exact,
-      scaled: fit.inverse.coefficients.map(scaledInteger),
+      fixedPoint: {
+        form: 'F = f * 2^frequencyFracBits as uint32, clamped to [lowFx, highFx]; u = (F - midFx) / halfFx in Q(uFracBits); '
+          + 'volts * 2^voltsFracBits = sum(scaled[k].q / 2^scaled[k].shift * u^k) by Horner in int64, rounding halves away from zero',
+        ...fixed,
+      },
     },
     forwardFit: {
       form: 'f = sum(coefficients[k] * V^k), V in volts, f in Hz',
       degree: fit.settings.degree,
       intercept: fit.settings.intercept,
       weighted: fit.settings.weighted,
+      weighting: fit.weighting,
+      birgeRatio: fit.birgeRatio,
       coefficients: fit.coefficients,
       standardErrors: fit.standardErrors,
       residualStandardDeviationHz: fit.residualStandardDeviationHz,
@@ -106,9 +112,9 @@ export function jsonExport(ctx: ExportContext, fit: FitView) {
     },
     validRange: { volts: fit.rangeV, hertz: fit.rangeHz },
     readingUncertainty: {
-      form: 'one reading read back with these coefficients: standard uncertainties in volts, expanded at 95 %',
+      form: 'one reading read back with these coefficients: standard uncertainties in volts (fit and scatter, reference, inverse polynomial departure as a rectangular bound), expanded at 95 %',
       points: fit.readingUncertainty.map((u) => ({
-        appliedV: u.appliedV, fitV: u.fitV, referenceV: u.referenceV, combinedV: u.combinedV,
+        appliedV: u.appliedV, fitV: u.fitV, referenceV: u.referenceV, inverseV: u.inverseV, newReadingHz: u.newReadingHz, combinedV: u.combinedV,
         degreesOfFreedom: Number.isFinite(u.degreesOfFreedom) ? u.degreesOfFreedom : null, coverageFactor: u.coverageFactor, expandedV: u.expandedV,
       })),
     },

@@ -122,14 +122,14 @@ export async function completeSession(dataSource: DataSource, mailer: Mailer, ac
   await dataSource.transaction(async (m) => {
     const done = await m.getRepository(CalibrationSession).update({ id, state: 'draft' }, { state: 'complete', completedAt: new Date() });
     if (!done.affected) throw new ConflictError(`calibration session ${id} is already complete`);
-    await recordAudit(m, actor.id, 'calibration.complete', `calibration:${id}`, { within: comparison?.within ?? null });
+    await recordAudit(m, actor.id, 'calibration.complete', `calibration:${id}`, { within: comparison?.within ?? null, decision: comparison?.acceptance.decision ?? null });
   });
   const design = session.board.revision.design;
   const channel = await sessionChannel(dataSource, session);
   try {
     await mailer.send(sessionCompleteMessage({
       to: design.owner.email, serialNumber: session.board.serialNumber, channelName: channel.name, designName: design.name,
-      revisionLetter: session.board.revision.letter, testerName: actor.displayName, within: comparison?.within ?? null,
+      revisionLetter: session.board.revision.letter, testerName: actor.displayName, decision: comparison?.acceptance.decision ?? null,
       summary: `Gain ${fit.coefficients[1].toPrecision(6)} Hz/V, offset ${fit.coefficients[0].toPrecision(4)} Hz, residual SD ${fit.residualStandardDeviationHz.toPrecision(3)} Hz from ${fit.pointsUsed} points.`,
       link: `${baseUrl}/calibrations/${id}`,
     }));
