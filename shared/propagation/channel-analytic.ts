@@ -1,4 +1,5 @@
 import type { CompiledChannel } from '../chain/compile.js';
+import { BOARD, PER_RESISTOR } from '../chain/layout.js';
 import { calibrationLine, readingErrorV } from '../chain/model.js';
 import type { MeasurementFunction } from './functional-model.js';
 import { gumPropagation, type GumResult } from './gum.js';
@@ -55,7 +56,10 @@ export interface ChannelWorstCasePoint extends WorstCaseResult {
 
 /**
  * Worst-case reading error at every grid voltage: corners of all bounded inputs, quantisation
- * ±1 count, normal inputs at ±k·σ (see worstCase for when corners are exhaustive).
+ * ±1 count, normal inputs at ±k·σ. Operating temperature is scanned (ends, reference and
+ * calibration temperatures, interior points) and at each temperature every TCR and tempco takes
+ * the sign its effect has there, so a cold extreme is found even when temperature has no
+ * first-order effect at the centre of its range (see worstCase for the guarantee).
  * @param c compiled channel
  * @throws never for a compiled channel
  * @example channelWorstCase(compiled)[0].method
@@ -63,6 +67,7 @@ export interface ChannelWorstCasePoint extends WorstCaseResult {
 export function channelWorstCase(c: CompiledChannel): ChannelWorstCasePoint[] {
   return Array.from(c.gridV, (voltageV, g) => {
     const { inputs, model } = channelErrorFunction(c, g);
-    return { ...worstCase(inputs, model), voltageV };
+    const scanned = c.resistorCount * PER_RESISTOR + BOARD.temperature;
+    return { ...worstCase(inputs, model, { scanned, scanValues: [c.referenceC, c.calibrationC] }), voltageV };
   });
 }

@@ -8,14 +8,17 @@ export interface OutputSummary {
   standardDeviation: number;
   symmetricInterval: CoverageInterval;
   shortestInterval: CoverageInterval;
+  /** Smallest and largest trial value, so a bound can be checked against every trial. */
+  minimum: number;
+  maximum: number;
   maxAbs: number;
   histogram: Histogram;
 }
 
 /**
  * Summarises model values per JCGM 101:2008 7.6 (mean, standard deviation with M − 1) and 7.7
- * (symmetric and shortest coverage intervals), plus max |value| and a histogram. The input is
- * not modified; a sorted copy is made.
+ * (symmetric and shortest coverage intervals), plus the smallest and largest value, max |value|
+ * and a histogram. The input is not modified; a sorted copy is made.
  * @param values model values (unit of the output), at least 2
  * @param coverageProbability p in (0, 1)
  * @param binCount histogram bins, integer ≥ 1
@@ -44,6 +47,8 @@ export function summariseValues(values: Float64Array, coverageProbability: numbe
     standardDeviation: Math.sqrt(squares / (count - 1)),
     symmetricInterval: symmetricInterval(sorted, coverageProbability),
     shortestInterval: shortestInterval(sorted, coverageProbability),
+    minimum: sorted[0],
+    maximum: sorted[count - 1],
     maxAbs,
     histogram: histogramOf(values, binCount),
   };

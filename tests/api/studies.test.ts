@@ -1,4 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { putChannels } from '../helpers/saves.js';
 import { createTestApp, type TestApp } from '../helpers/test-app.js';
 import { AnalysisRun } from '../../server/entities/AnalysisRun.js';
 import { channelStudy } from '../../shared/propagation/index.js';
@@ -40,7 +41,7 @@ describe('uncertainty studies in the worker pool', () => {
     expect(point.voltageV).toBe(500);
     expect(point.monteCarlo.trials).toBe(5000);
     expect(point.gum.budget.length).toBeGreaterThan(3);
-    expect(['exhaustive', 'sensitivity-signs']).toContain(point.worstCase.method);
+    expect(['exhaustive', 'signs-and-flips']).toContain(point.worstCase.method);
 
     // The stored result is what the engine gives when called directly with the same seed.
     const definition = run.inputs.channels[1].definition;
@@ -75,7 +76,7 @@ describe('uncertainty studies in the worker pool', () => {
     const rev = (await designer.get(`/api/revisions/${revisionId}`)).body.revision;
     const channels = rev.channels.map((c: { key: string; definition: { divider: { bottom: { nominalOhm: number } } } }) => ({ key: c.key, definition: c.definition }));
     channels[0].definition.divider.bottom.nominalOhm = 33.2e3;
-    await designer.put(`/api/revisions/${revisionId}/channels`).send({ channels });
+    await putChannels(designer, revisionId, { channels });
     const after = await designer.get(`/api/runs/${started.body.run.id}`);
     expect(after.body.run.current).toBe(false);
   });

@@ -55,11 +55,43 @@ describe('worst case', () => {
     expect(result.cornersEvaluated).toBe(4);
   });
 
-  it('follows sensitivity signs when many inputs are bounded', () => {
+  it('follows effect signs and flips when many inputs are bounded', () => {
     const inputs = Array.from({ length: 20 }, (_, i) => input(i, i + 1));
     const result = worstCase(inputs, (x) => x.reduce((a, v, i) => a + (i % 2 ? -v : v), 0));
-    expect(result.method).toBe('sensitivity-signs');
+    expect(result.method).toBe('signs-and-flips');
     expect(result.maximum).toBeCloseTo(210, 12); // Σ a_i for a linear model
     expect(result.minimum).toBeCloseTo(-210, 12);
+  });
+
+  it('reaches the far end of a scanned input that the coefficients multiply', () => {
+    // y = Σ₂ α_i (t + 0.3) + Σ₁₀ β_j (t − 0.1) + Σ₁₂ δ_k, t ∈ [−1, 1] last: at the centre t has no effect and the
+    // α favour t = +1, yet the extreme is at t = −1; flipping t alone from the hot corner only loses
+    const inputs = deepFreeze([
+      ...Array.from({ length: 24 }, (_, i) => input(i, 1)),
+      uncertainInput({ key: 't', label: 'T', where: 'model', unit: '1', distribution: 'rectangular', halfWidth: 1, centre: 0 }),
+    ]);
+    const model = (x: Float64Array) => {
+      let y = 0;
+      for (let i = 0; i < 24; i++) y += x[i] * (i < 2 ? x[24] + 0.3 : i < 12 ? x[24] - 0.1 : 1);
+      return y;
+    };
+    const result = worstCase(inputs, model, { scanned: 24 });
+    expect(result.maximum).toBeCloseTo(2 * 0.7 + 10 * 1.1 + 12, 12); // by hand: t = −1, α = β = −1, δ = +1 (hot end gives 23.6)
+    expect(result.minimum).toBeCloseTo(-(2 * 0.7 + 10 * 1.1 + 12), 12); // by hand: mirror corner
+    expect(result.boundedInputs).toBe(25);
+  });
+
+  it('refines a scanned input whose extreme lies inside its range', () => {
+    const inputs = [
+      uncertainInput({ key: 't', label: 'T', where: 'model', unit: '1', distribution: 'rectangular', halfWidth: 0.5, centre: 0.5 }),
+      ...Array.from({ length: 12 }, (_, i) => input(i + 1, 1)),
+    ];
+    const result = worstCase(inputs, (x) => -((x[0] - 0.3) ** 2) + x.subarray(1).reduce((a, v) => a + v, 0), { scanned: 0 });
+    expect(result.maximum).toBeCloseTo(12, 4); // by hand: t = 0.3, every x_i = +1; golden section to 0.618^12 of the bracket
+    expect(result.minimum).toBeCloseTo(-12 - 0.49, 12); // by hand: t = 1, every x_i = −1
+  });
+
+  it('refuses a scanned index that names no input', () => {
+    expect(() => worstCase([input(1, 1)], (x) => x[0], { scanned: 3 })).toThrow('scanned input must be an input index');
   });
 });
