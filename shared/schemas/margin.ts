@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import type { CriterionOutcome } from '../precharge/resolution.js';
 import type { Histogram } from '../propagation/histogram.js';
 import { formatEng } from '../units/format-engineering.js';
 
@@ -83,10 +84,13 @@ export const marginStudyRequestSchema = z.strictObject({
     .min(1000, { error: 'trials must be ≥ 1000' }).max(MAX_MARGIN_TRIALS, { error: `trials must be ≤ ${MAX_MARGIN_TRIALS}` }).default(100_000),
   /** Trials per fault case. */
   faultTrials: z.number({ error: 'faultTrials must be a number' }).int({ error: 'faultTrials must be a whole number' })
-    .min(500, { error: 'faultTrials must be ≥ 500' }).max(100_000, { error: 'faultTrials must be ≤ 100000' }).default(10_000),
-  /** Simulated boards whose reading errors the study draws from, per channel. */
-  readingErrorTrials: z.number({ error: 'readingErrorTrials must be a number' }).int()
-    .min(500, { error: 'readingErrorTrials must be ≥ 500' }).max(100_000, { error: 'readingErrorTrials must be ≤ 100000' }).default(20_000),
+    .min(500, { error: 'faultTrials must be ≥ 500' }).max(MAX_MARGIN_TRIALS, { error: `faultTrials must be ≤ ${MAX_MARGIN_TRIALS}` }).default(10_000),
+  /**
+   * Simulated boards whose reading errors the study draws from, per channel. Trials share these
+   * boards, so a probability can be shown no smaller than about 3 / min(boards, trials).
+   */
+  readingErrorTrials: z.number({ error: 'readingErrorTrials must be a number' }).int({ error: 'readingErrorTrials must be a whole number' })
+    .min(500, { error: 'readingErrorTrials must be ≥ 500' }).max(MAX_MARGIN_TRIALS, { error: `readingErrorTrials must be ≤ ${MAX_MARGIN_TRIALS}` }).default(20_000),
   seed: z.number({ error: 'seed must be a number' }).int({ error: 'seed must be a whole number' })
     .min(0, { error: 'seed must be ≥ 0' }).max(2 ** 31 - 1, { error: 'seed must be < 2³¹' }).optional(),
 });
@@ -104,14 +108,19 @@ export function faultCaseLabel(fault: FaultCase): string {
 
 // ---- Result of a margin study (what /api/runs/:id returns as `result` for kind 'margin') ----
 
-export type MarginVerdict = 'pass' | 'fail' | 'unable-to-close';
+/** 'not-shown': nothing fails, but some criterion needs more trials or simulated boards to be shown met. */
+export type MarginVerdict = 'pass' | 'fail' | 'unable-to-close' | 'not-shown';
 export type FaultDetection = 'too-fast' | 'too-slow' | 'not-detected' | 'not-evaluated';
 
 /** One line of the ten-second summary. */
 export interface MarginCriterion {
   key: string;
   criterion: string;
+  /** True only when the criterion is met (for probabilities: its 95 % upper bound is within the allowance). */
   pass: boolean;
+  outcome: CriterionOutcome;
+  /** Probabilities only: one-sided 95 % upper confidence bound of the value, allowing for shared boards. */
+  upperBound?: number;
   value: number | null;
   limit: number | null;
   unit: string;
@@ -130,6 +139,20 @@ export interface MarginFaultResult {
   notDetectedFraction: number | null;
   /** Closure time of the fault's nominal curve with exact readings, s (null: never). */
   nominalCloseS: number | null;
+}
+
+/** What the healthy and fault runs can resolve (see shared/precharge/resolution.ts). */
+export interface MarginResolution {
+  /** Simulated boards (reading-error draws) the trials share, per channel; null when every trial draws afresh. */
+  readingErrorDraws: number | null;
+  /** Independent samples behind a healthy-run probability: min(trials, boards). */
+  independentTrials: number;
+  /** Smallest probability the healthy run can show (the 95 % bound after no events). */
+  smallestShowable: number;
+  faultIndependentTrials: number;
+  faultSmallestShowable: number;
+  /** Boards and trials each needed to show the allowed probability with no events. */
+  neededForAllowed: number;
 }
 
 export interface MarginDistribution {
@@ -158,6 +181,8 @@ export interface MarginStudyResult {
     readingErrors: { mode: ReadingErrorSource['mode']; boardId?: number; description: string;
       channels: { key: string; name: string; gainSigmaFraction: number; offsetSigmaV: number }[] };
   };
+  /** How small a probability these trials and boards can show at 95 % confidence. */
+  resolution: MarginResolution;
   earlyClosureProbability: number | null;
   stepExceedanceProbability: number | null;
   neverReachedProbability: number;

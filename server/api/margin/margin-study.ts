@@ -1,12 +1,13 @@
 import type { ChannelDefinition } from '../../../shared/schemas/chain.js';
-import { faultCaseLabel, type FaultDetection, type MarginInputs, type MarginStudyResult } from '../../../shared/schemas/margin.js';
+import { faultCaseLabel, type FaultDetection, type MarginInputs, type MarginResolution, type MarginStudyResult } from '../../../shared/schemas/margin.js';
 import {
-  nominalClosability, ratioEnvelope, readingErrorSamples, simulatePrechargeChunk, summarisePrecharge, finiteSorted,
+  nominalClosability, ratioEnvelope, readingErrorSamples, simulatePrechargeChunk, summarisePrecharge, finiteSorted, independentTrials, readingErrorDraws,
   linkFractionAt, steadyStateFraction, timeConstantS, timeToFractionS, PRECHARGE_OUTPUT, type PrechargeDesign, type PrechargeStudy, type ReadingErrorModel,
 } from '../../../shared/precharge/index.js';
 import { blockCountFor, mergeChunks, outputValues, planChunks, type TrialChunk } from '../../../shared/propagation/index.js';
 import { channelForMode, faultyNetwork, leakagePathsOf, parallelOhm, prechargeDesignOf, toPrechargeFault } from './margin-model.js';
 import { marginSummary } from './margin-summary.js';
+import { clopperPearsonUpper, trialsToShow } from '../../../shared/stats/clopper-pearson.js';
 
 /** Everything a margin study needs, as plain data (stored with the run, sent to a worker). */
 export interface MarginStudyData {
@@ -97,6 +98,21 @@ function unableToCloseStudy(design: PrechargeDesign, merged: TrialChunk): Omit<P
   };
 }
 
+/** How small a probability the healthy and fault runs can show, given the boards their trials share. */
+function resolutionOf(design: PrechargeDesign, trials: number, faultTrials: number, allowed: number): MarginResolution {
+  const draws = readingErrorDraws(design);
+  const healthy = independentTrials(trials, draws);
+  const fault = independentTrials(faultTrials, draws);
+  return {
+    readingErrorDraws: draws,
+    independentTrials: healthy,
+    smallestShowable: clopperPearsonUpper(0, healthy),
+    faultIndependentTrials: fault,
+    faultSmallestShowable: clopperPearsonUpper(0, fault),
+    neededForAllowed: trialsToShow(allowed),
+  };
+}
+
 /**
  * The margin study of one revision: reading errors of both channels, the pre-charge Monte Carlo,
  * plausibility window, fault verdicts, chart data and the pass/fail summary.
@@ -178,6 +194,7 @@ export function computeMarginStudy(data: MarginStudyData, onProgress: (fraction:
         ],
       },
     },
+    resolution: resolutionOf(design, merged.trials, data.faultTrials, inputs.allowedProbability),
     earlyClosureProbability: requiredRatio === null ? null : study.earlyClosureProbability,
     stepExceedanceProbability,
     neverReachedProbability: study.neverReachedProbability,
@@ -203,7 +220,9 @@ export function computeMarginStudy(data: MarginStudyData, onProgress: (fraction:
     },
   };
   const summary = marginSummary(inputs, result, closability);
-  const verdict = !summary.find((c) => c.key === 'closes')?.pass ? 'unable-to-close' : summary.every((c) => c.pass) ? 'pass' : 'fail';
+  const verdict = !summary.find((c) => c.key === 'closes')?.pass ? 'unable-to-close'
+    : summary.some((c) => c.outcome === 'not-met') ? 'fail'
+      : summary.some((c) => c.outcome === 'not-shown') ? 'not-shown' : 'pass';
   onProgress(1);
   return { verdict, summary, ...result };
 }

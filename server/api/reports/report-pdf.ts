@@ -15,7 +15,8 @@ function criterionValue(c: MarginCriterion, v: number | null): string {
   return formatEng(v, c.unit);
 }
 
-const VERDICT_TEXT = { pass: 'PASS: every criterion holds', fail: 'FAIL: see the failed criteria', 'unable-to-close': 'UNABLE TO CLOSE: the healthy pre-charge never reaches the threshold' } as const;
+const VERDICT_TEXT = { pass: 'PASS: every criterion holds', fail: 'FAIL: see the failed criteria', 'unable-to-close': 'UNABLE TO CLOSE: the healthy pre-charge never reaches the threshold',
+  'not-shown': 'NOT SHOWN: nothing fails, but some criterion needs more trials or simulated boards to be shown met' } as const;
 
 function caution(pdf: PdfWriter, report: ReviewReport): void {
   const { doc } = pdf;
@@ -46,7 +47,7 @@ function marginSection(pdf: PdfWriter, report: ReviewReport): void {
   pdf.paragraph(VERDICT_TEXT[r.verdict], { bold: true, colour: r.verdict === 'pass' ? COLOURS.primary : COLOURS.red });
   pdf.table(
     [{ header: 'Criterion', width: 170 }, { header: 'Result', width: 40 }, { header: 'Value', width: 70, align: 'right' }, { header: 'Limit', width: 60, align: 'right' }, { header: 'Why', width: pdf.width - 340 }],
-    r.summary.map((c) => [c.criterion, c.pass ? 'pass' : 'FAIL', criterionValue(c, c.value), criterionValue(c, c.limit), c.explanation]),
+    r.summary.map((c) => [c.criterion, c.pass ? 'pass' : c.outcome === 'not-shown' ? 'NOT SHOWN' : 'FAIL', criterionValue(c, c.value), criterionValue(c, c.limit), c.explanation]),
     { colourOf: (row, col) => (col === 1 ? (r.summary[row].pass ? COLOURS.primary : COLOURS.red) : undefined) },
   );
   const i = margin.inputs;
