@@ -34,6 +34,8 @@ export interface CompiledChannel {
   tickHz: number;
   periodsAveraged: number;
   gateS: number;
+  /** 2^counterBits: the count the counter reads as 0. */
+  counterModulus: number;
   referenceC: number;
   calibrated: boolean;
   calibrationC: number;
@@ -89,6 +91,7 @@ export function compileChannel(channel: ChannelDefinition, gridPoints = 11): Com
     tickHz: capture.method === 'period' ? capture.clockHz / capture.prescaler : 0,
     periodsAveraged: capture.method === 'period' ? capture.periodsAveraged : 1,
     gateS: capture.method === 'gated' ? capture.gateS : 0,
+    counterModulus: 2 ** capture.counterBits,
     referenceC: environment.referenceC,
     calibrated,
     calibrationC: calibrated ? reconstruction.temperatureC : environment.referenceC,

@@ -5,7 +5,8 @@ import type { ChannelDefinition } from './types.js';
  * The channel's board inputs (drawn once per simulated board) in compiled-vector order: per
  * resistor tolerance (fraction), TCR (1/K), voltage coefficient (1/V); then gain error
  * (fraction), offset error (Hz), gain tempco (1/K), offset drift (Hz/K), nonlinearity (fraction
- * of full scale), input bias current (A), clock error (fraction), operating temperature (°C),
+ * of full scale), input bias current (A), input resistance tolerance (fraction) and tempco (1/K),
+ * clock error (fraction), operating temperature (°C),
  * calibration gain (fraction) and offset (V). Bounds without a stated shape are rectangular.
  * @param channel fully specified, validated channel
  * @throws never for a validated channel
@@ -35,6 +36,12 @@ export function boardInputs(channel: ChannelDefinition): UncertainInput[] {
   rect('converter.offsetDrift', 'converter offset drift', 'converter', 'Hz/K', converter.offsetDriftHzPerK);
   rect('converter.nonlinearity', 'converter nonlinearity', 'converter', '1', converter.nonlinearityPctFs / 100);
   rect('converter.inputBiasCurrent', 'converter input bias current', 'converter', 'A', converter.inputBiasCurrentA);
+  // Without an input resistance the divider is unloaded and its spread has nothing to act on.
+  const loaded = converter.inputResistanceOhm !== undefined;
+  rect('converter.inputResistanceTolerance', 'converter input resistance tolerance', 'converter', '1',
+    loaded ? (converter.inputResistanceTolerancePct ?? 0) / 100 : 0);
+  rect('converter.inputResistanceTempco', 'converter input resistance tempco', 'converter', '1/K',
+    loaded ? (converter.inputResistanceTempcoPpmPerK ?? 0) * 1e-6 : 0);
   rect('capture.clockTolerance', 'timer clock tolerance', 'capture', '1', capture.clockTolerancePpm * 1e-6);
   rect('environment.temperature', 'operating temperature', 'environment', '°C', (environment.maxC - environment.minC) / 2, (environment.maxC + environment.minC) / 2);
   const calibrated = reconstruction.mode === 'calibrated';

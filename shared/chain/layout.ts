@@ -12,14 +12,16 @@ export const BOARD = {
   offsetDrift: 3,
   nonlinearity: 4,
   biasCurrent: 5,
-  clockError: 6,
-  temperature: 7,
-  calibrationGain: 8,
-  calibrationOffset: 9,
+  inputResistanceTolerance: 6,
+  inputResistanceTempco: 7,
+  clockError: 8,
+  temperature: 9,
+  calibrationGain: 10,
+  calibrationOffset: 11,
 } as const;
 
 /** Number of board inputs after the resistor block. */
-export const BOARD_TAIL = 10;
+export const BOARD_TAIL = 12;
 
 /** Reading inputs, offsets after the last board input. */
 export const READING = { quantisation: 0, startEdge: 1, endEdge: 2 } as const;

@@ -3,7 +3,7 @@ import { BOARD, PER_RESISTOR } from './layout.js';
 
 /**
  * Frequency the converter emits at point p for one simulated board x (compiled-vector order):
- * R_i = R_i0(1 + δ_i)(1 + α_i(ΔT + P_iθ_i) + β_i V_i), R_b' = R_b ‖ R_in,
+ * R_i = R_i0(1 + δ_i)(1 + α_i(ΔT + P_iθ_i) + β_i V_i), R_in = R_in0(1 + δ_in)(1 + α_inΔT), R_b' = R_b ‖ R_in,
  * V_in = V·R_b'/(R_top + R_b') − I_b·(R_top ‖ R_b'), f_lin = f₀ + δf₀ + ḟ₀ΔT + G(1 + ε_G + γΔT)V_in,
  * f = f_lin + a_NL·f_FS·4x(1 − x) with x = f_lin/f_FS clipped to [0, 1]. Clipped at 0 Hz.
  * @param c compiled channel
@@ -24,7 +24,8 @@ export function converterFrequencyHz(c: CompiledChannel, x: Float64Array, p: num
     else bottomOhm = ohm;
   }
   const tail = c.resistorCount * PER_RESISTOR;
-  const loaded = c.inputResistanceOhm === Infinity ? bottomOhm : (bottomOhm * c.inputResistanceOhm) / (bottomOhm + c.inputResistanceOhm);
+  const inputOhm = c.inputResistanceOhm * (1 + x[tail + BOARD.inputResistanceTolerance]) * (1 + x[tail + BOARD.inputResistanceTempco] * deltaK);
+  const loaded = c.inputResistanceOhm === Infinity ? bottomOhm : (bottomOhm * inputOhm) / (bottomOhm + inputOhm);
   const total = topOhm + loaded;
   const inputV = (c.pointV[p] * loaded) / total - (x[tail + BOARD.biasCurrent] * topOhm * loaded) / total;
   const gain = c.gainHzPerV * (1 + x[tail + BOARD.gainError] + x[tail + BOARD.gainTempco] * deltaK);
@@ -35,9 +36,32 @@ export function converterFrequencyHz(c: CompiledChannel, x: Float64Array, p: num
 }
 
 /**
+ * What a counter of 2^bits states reads: the count modulo 2^bits, as firmware subtracting two
+ * captures (or reading a gated counter) sees it once the count passes 2^bits − 1.
+ * @param c compiled channel (its counter modulus)
+ * @param counts counts as they would be on an endless counter (≥ 0)
+ * @returns counts mod 2^bits
+ * @example readCount(compiled, 768_000) // 47 104 on a 16-bit counter
+ */
+export function readCount(c: CompiledChannel, counts: number): number {
+  return counts >= c.counterModulus ? counts % c.counterModulus : counts;
+}
+
+/** Noise-free measured frequency: f/(1 + ε_clk), unless the counter wraps. */
+function noiseFreeMeasuredHz(c: CompiledChannel, hz: number, clock: number): number {
+  if (!(hz > 0)) return 0;
+  const counts = c.periodCapture ? (c.periodsAveraged * c.tickHz * clock) / hz : (hz * c.gateS) / clock;
+  if (counts < c.counterModulus) return hz / clock;
+  const read = readCount(c, counts);
+  if (!c.periodCapture) return read / c.gateS;
+  return read > 0 ? (c.periodsAveraged * c.tickHz) / read : 0;
+}
+
+/**
  * Two-point calibration of one board at the calibration temperature: the line V = a + b·f̂
  * through its noise-free measured frequencies f̂ = f/(1 + ε_clk) at the two calibration points,
- * so gain, offset and clock errors at that temperature are removed.
+ * so gain, offset and clock errors at that temperature are removed. A counter that wraps there
+ * gives the wrapped frequency, as the bench would record it.
  * @param c compiled channel (calibrated)
  * @param x board inputs
  * @param line output: line[0] = a (V), line[1] = b (V/Hz)
@@ -49,8 +73,8 @@ export function calibrationLine(c: CompiledChannel, x: Float64Array, line: Float
   const deltaK = c.calibrationC - c.referenceC;
   const clock = 1 + x[tail + BOARD.clockError];
   const low = c.pointCount - 2;
-  const lowHz = converterFrequencyHz(c, x, low, deltaK) / clock;
-  const highHz = converterFrequencyHz(c, x, low + 1, deltaK) / clock;
+  const lowHz = noiseFreeMeasuredHz(c, converterFrequencyHz(c, x, low, deltaK), clock);
+  const highHz = noiseFreeMeasuredHz(c, converterFrequencyHz(c, x, low + 1, deltaK), clock);
   if (lowHz === highHz) throw new Error('calibration points give the same frequency');
   line[1] = (c.pointV[low + 1] - c.pointV[low]) / (highHz - lowHz);
   line[0] = c.pointV[low] - line[1] * lowHz;
@@ -61,7 +85,8 @@ export function calibrationLine(c: CompiledChannel, x: Float64Array, line: Float
  * n = N(f_clk/P)(1 + ε_clk)/f plus edge timing (t_end − t_start)(f_clk/P)(1 + ε_clk) and reads
  * f̂ = N(f_clk/P)/n; a gated count gives n = f·T_gate/(1 + ε_clk) and f̂ = n/T_gate. With
  * `byPhase` the count is ⌊n + q⌋, q ~ U[0, 1) (±1 count, random phase); otherwise n + q (q in
- * counts, for the GUM and worst case). No counts reads as 0 Hz. Uncalibrated V̂ = (f̂ − f₀)/(G·r);
+ * counts, for the GUM and worst case). The counter reads the count modulo 2^bits (readCount), so
+ * an overflow gives the wrong reading the firmware would. No counts reads as 0 Hz. Uncalibrated V̂ = (f̂ − f₀)/(G·r);
  * calibrated V̂ = (a + b·f̂)(1 + ε_cal) + δ_cal.
  * @param c compiled channel
  * @param x board inputs
@@ -85,12 +110,12 @@ export function readingErrorV(
   if (c.periodCapture) {
     if (hz > 0) {
       const ticks = (c.periodsAveraged / hz + endEdgeS - startEdgeS) * c.tickHz * clock;
-      const counts = byPhase ? Math.floor(ticks + q) : ticks + q;
+      const counts = readCount(c, byPhase ? Math.floor(ticks + q) : ticks + q);
       measuredHz = counts > 0 ? (c.periodsAveraged * c.tickHz) / counts : 0;
     }
   } else {
     const pulses = (hz * c.gateS) / clock;
-    const counts = byPhase ? Math.floor(pulses + q) : pulses + q;
+    const counts = readCount(c, byPhase ? Math.floor(pulses + q) : pulses + q);
     measuredHz = counts / c.gateS;
   }
   const estimateV = c.calibrated

@@ -21,7 +21,10 @@ export interface ChainWarning {
     | 'converter-over-range'
     | 'isolator-rate-exceeded'
     | 'counter-overflow'
-    | 'few-counts';
+    | 'few-counts'
+    | 'rating-missing';
+  /** 'info' when a check could not be made (a rating not entered) rather than failed. */
+  level: 'warning' | 'info';
   message: string;
   where: string;
 }

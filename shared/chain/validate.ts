@@ -1,4 +1,5 @@
 import { MAX_TOP_RESISTORS } from '../schemas/chain.js';
+import { BOUNDS, boundProblem, MAX_PERIODS_AVERAGED, MAX_PRESCALER, TEMPERATURE_BOUND, type InputBound } from './bounds.js';
 import type { ChannelDefinition, ResistorDefinition } from './types.js';
 
 function check(ok: boolean, message: string): void {
@@ -6,17 +7,22 @@ function check(ok: boolean, message: string): void {
 }
 
 const isPositive = (v: unknown): boolean => typeof v === 'number' && Number.isFinite(v) && v > 0;
-const isNonNegative = (v: unknown): boolean => typeof v === 'number' && Number.isFinite(v) && v >= 0;
+
+/** Throws the bound's message (`top resistor 2 tolerance must be ≤ 50 %`) when the value lies outside it. */
+function checkBound(value: unknown, name: string, bound: InputBound): void {
+  const problem = boundProblem(value, name, bound);
+  if (problem) throw new Error(problem);
+}
 
 function checkResistor(r: ResistorDefinition, name: string): void {
-  check(isPositive(r.nominalOhm), `${name} must be > 0 Ω`);
-  check(isNonNegative(r.tolerancePct), `${name} tolerance must be ≥ 0 %`);
-  check(isNonNegative(r.tcrPpmPerK), `${name} TCR must be ≥ 0 ppm/K`);
-  check(isNonNegative(r.voltageCoefficientPpmPerV), `${name} voltage coefficient must be ≥ 0 ppm/V`);
-  check(isNonNegative(r.thermalResistanceKPerW), `${name} thermal resistance must be ≥ 0 K/W`);
-  check(r.toleranceDistribution !== 'normal' || isPositive(r.toleranceCoverageFactor), `${name} coverage factor must be > 0`);
-  check(r.ratedVoltageV === undefined || isPositive(r.ratedVoltageV), `${name} rated voltage must be > 0 V`);
-  check(r.ratedPowerW === undefined || isPositive(r.ratedPowerW), `${name} rated power must be > 0 W`);
+  checkBound(r.nominalOhm, name, BOUNDS.resistance);
+  checkBound(r.tolerancePct, `${name} tolerance`, BOUNDS.tolerance);
+  checkBound(r.tcrPpmPerK, `${name} TCR`, BOUNDS.tcr);
+  checkBound(r.voltageCoefficientPpmPerV, `${name} voltage coefficient`, BOUNDS.voltageCoefficient);
+  checkBound(r.thermalResistanceKPerW, `${name} thermal resistance`, BOUNDS.thermalResistance);
+  if (r.toleranceDistribution === 'normal') checkBound(r.toleranceCoverageFactor, `${name} coverage factor`, BOUNDS.coverageFactor);
+  if (r.ratedVoltageV !== undefined) checkBound(r.ratedVoltageV, `${name} rated voltage`, BOUNDS.ratedVoltage);
+  if (r.ratedPowerW !== undefined) checkBound(r.ratedPowerW, `${name} rated power`, BOUNDS.ratedPower);
 }
 
 /**
@@ -34,42 +40,49 @@ export function assertChannel(channel: ChannelDefinition): void {
   divider.top.forEach((r, i) => checkResistor(r, `top resistor ${i + 1}`));
   checkResistor(divider.bottom, 'bottom resistor');
   check(isPositive(divider.deratingFraction) && divider.deratingFraction <= 1, 'derating fraction must be in (0, 1]');
-  check(isNonNegative(rangeV.minV), 'range minimum must be ≥ 0 V');
-  check(isPositive(rangeV.maxV) && rangeV.maxV > rangeV.minV, 'voltage range reversed');
-  check(isPositive(converter.gainHzPerV), 'converter gain must be > 0 Hz/V');
-  check(isNonNegative(converter.offsetHz), 'converter offset must be ≥ 0 Hz');
-  check(isPositive(converter.fullScaleHz), 'full-scale frequency must be > 0 Hz');
-  for (const [value, name, unit] of [
-    [converter.gainErrorPct, 'gain error', '%'],
-    [converter.offsetErrorHz, 'offset error', 'Hz'],
-    [converter.gainTempcoPpmPerK, 'gain tempco', 'ppm/K'],
-    [converter.offsetDriftHzPerK, 'offset drift', 'Hz/K'],
-    [converter.nonlinearityPctFs, 'nonlinearity', '% FS'],
-    [converter.inputBiasCurrentA, 'input bias current', 'A'],
-  ] as const) check(isNonNegative(value), `${name} must be ≥ 0 ${unit}`);
-  check(converter.inputResistanceOhm === undefined || isPositive(converter.inputResistanceOhm), 'converter input resistance must be > 0 Ω');
+  checkBound(rangeV.minV, 'range minimum', BOUNDS.rangeMin);
+  checkBound(rangeV.maxV, 'range maximum', BOUNDS.rangeMax);
+  check(rangeV.maxV > rangeV.minV, 'voltage range reversed');
+  for (const [value, name, bound] of [
+    [converter.gainHzPerV, 'converter gain', BOUNDS.converterGain],
+    [converter.offsetHz, 'converter offset', BOUNDS.frequency],
+    [converter.fullScaleHz, 'full-scale frequency', BOUNDS.fullScale],
+    [converter.gainErrorPct, 'gain error', BOUNDS.gainError],
+    [converter.offsetErrorHz, 'offset error', BOUNDS.frequency],
+    [converter.gainTempcoPpmPerK, 'gain tempco', BOUNDS.gainTempco],
+    [converter.offsetDriftHzPerK, 'offset drift', BOUNDS.offsetDrift],
+    [converter.nonlinearityPctFs, 'nonlinearity', BOUNDS.nonlinearity],
+    [converter.inputBiasCurrentA, 'input bias current', BOUNDS.inputBiasCurrent],
+    [converter.inputResistanceTolerancePct ?? 0, 'input resistance tolerance', BOUNDS.inputResistanceTolerance],
+    [converter.inputResistanceTempcoPpmPerK ?? 0, 'input resistance tempco', BOUNDS.inputResistanceTempco],
+  ] as const) checkBound(value, name, bound);
+  if (converter.inputResistanceOhm !== undefined) checkBound(converter.inputResistanceOhm, 'converter input resistance', BOUNDS.inputResistance);
   if (isolator) {
-    check(isPositive(isolator.maxSignalRateBd), 'isolator signalling rate must be > 0 Bd');
-    check(isNonNegative(isolator.pulseWidthDistortionS), 'pulse-width distortion must be ≥ 0 s');
+    checkBound(isolator.maxSignalRateBd, 'isolator signalling rate', BOUNDS.signalRate);
+    checkBound(isolator.pulseWidthDistortionS, 'pulse-width distortion', BOUNDS.pulseWidthDistortion);
   }
-  check(isNonNegative(capture.clockTolerancePpm), 'clock tolerance must be ≥ 0 ppm');
+  checkBound(capture.clockTolerancePpm, 'clock tolerance', BOUNDS.clockTolerance);
   check(Number.isInteger(capture.counterBits) && capture.counterBits >= 8 && capture.counterBits <= 64, 'counter width must be 8–64 bits');
   if (capture.method === 'period') {
-    check(isPositive(capture.clockHz), 'timer clock must be > 0 Hz');
-    check(Number.isInteger(capture.prescaler) && capture.prescaler >= 1, 'prescaler must be a whole number ≥ 1');
-    check(Number.isInteger(capture.periodsAveraged) && capture.periodsAveraged >= 1, 'periods averaged must be a whole number ≥ 1');
+    checkBound(capture.clockHz, 'timer clock', BOUNDS.clock);
+    check(Number.isInteger(capture.prescaler) && capture.prescaler >= 1 && capture.prescaler <= MAX_PRESCALER, `prescaler must be a whole number from 1 to ${MAX_PRESCALER}`);
+    check(Number.isInteger(capture.periodsAveraged) && capture.periodsAveraged >= 1 && capture.periodsAveraged <= MAX_PERIODS_AVERAGED,
+      `periods averaged must be a whole number from 1 to ${MAX_PERIODS_AVERAGED}`);
   } else if (capture.method === 'gated') {
-    check(isPositive(capture.gateS), 'gate time must be > 0 s');
+    checkBound(capture.gateS, 'gate time', BOUNDS.gate);
   } else throw new Error('capture method must be period or gated');
-  check(Number.isFinite(environment.minC) && Number.isFinite(environment.maxC), 'temperature range must be finite');
+  checkBound(environment.minC, 'minimum temperature', TEMPERATURE_BOUND);
+  checkBound(environment.maxC, 'maximum temperature', TEMPERATURE_BOUND);
   check(environment.maxC >= environment.minC, 'temperature range reversed');
-  check(Number.isFinite(environment.referenceC), 'reference temperature must be finite');
+  checkBound(environment.referenceC, 'reference temperature', TEMPERATURE_BOUND);
   if (reconstruction.mode === 'calibrated') {
-    check(Number.isFinite(reconstruction.temperatureC), 'calibration temperature must be finite');
+    checkBound(reconstruction.temperatureC, 'calibration temperature', TEMPERATURE_BOUND);
     const [low, high] = reconstruction.pointsV ?? [rangeV.minV, rangeV.maxV];
-    check(Number.isFinite(low) && Number.isFinite(high) && low !== high, 'calibration points must differ');
-    check(isNonNegative(reconstruction.gainUncertaintyFraction), 'calibration gain uncertainty must be ≥ 0');
-    check(isNonNegative(reconstruction.offsetUncertaintyV), 'calibration offset uncertainty must be ≥ 0 V');
-    check(isPositive(reconstruction.coverageFactor), 'calibration coverage factor must be > 0');
+    checkBound(low, 'calibration point', BOUNDS.calibrationPoint);
+    checkBound(high, 'calibration point', BOUNDS.calibrationPoint);
+    check(low !== high, 'calibration points must differ');
+    checkBound(reconstruction.gainUncertaintyFraction, 'calibration gain uncertainty', BOUNDS.calibrationGainUncertainty);
+    checkBound(reconstruction.offsetUncertaintyV, 'calibration offset uncertainty', BOUNDS.calibrationOffsetUncertainty);
+    checkBound(reconstruction.coverageFactor, 'calibration coverage factor', BOUNDS.coverageFactor);
   }
 }

@@ -1,4 +1,5 @@
 import { compileChannel } from '../chain/compile.js';
+import { counterOverflow } from '../chain/overflow.js';
 import type { ChannelDefinition } from '../chain/types.js';
 import { runAdaptiveMonteCarlo, type Stabilisation } from './adaptive.js';
 import { channelGum, channelWorstCase, type ChannelGumPoint, type ChannelWorstCasePoint } from './channel-analytic.js';
@@ -32,6 +33,8 @@ export interface ChannelStudyPoint {
   worstCase: ChannelWorstCasePoint;
   gumValidation: GumValidation;
   stabilisation?: Stabilisation;
+  /** True when some reading here wraps the counter (nominal or within the bounds); the numbers include the wrap. */
+  counterOverflow?: boolean;
 }
 
 /** A whole channel study. */
@@ -94,6 +97,7 @@ export function channelStudy(channel: ChannelDefinition, options: ChannelStudyOp
     : fixedRun(kernel, options.seed, options.trials as number, p, report);
   const gum = channelGum(compiled, p);
   const worst = channelWorstCase(compiled);
+  const overflow = counterOverflow(compiled);
   const points = Array.from(compiled.gridV, (voltageV, g) => ({
     voltageV,
     monteCarlo: mc.outputs[g],
@@ -101,6 +105,7 @@ export function channelStudy(channel: ChannelDefinition, options: ChannelStudyOp
     worstCase: worst[g],
     gumValidation: validateGum(gum[g], mc.outputs[g].symmetricInterval, ndig),
     stabilisation: mc.stabilisation[g],
+    counterOverflow: overflow[g].overflows,
   }));
   return {
     seed: options.seed,

@@ -1,29 +1,36 @@
 import { z } from 'zod';
+import { BOUNDS, boundProblem, MAX_PERIODS_AVERAGED, MAX_PRESCALER, TEMPERATURE_BOUND, type InputBound } from '../chain/bounds.js';
 
 /** Largest number of resistors in a divider's top string. */
 export const MAX_TOP_RESISTORS = 8;
 
 const finite = (name: string) => z.number({ error: `${name} must be a number` }).refine(Number.isFinite, { error: `${name} must be finite` });
-const positive = (name: string, unit: string) => finite(name).refine((v) => v > 0, { error: `${name} must be > 0 ${unit}` });
-const nonNegative = (name: string, unit: string) => finite(name).refine((v) => v >= 0, { error: `${name} must be ≥ 0 ${unit}` });
+/** A number within its physical bound; the message names the input and the limit (`tolerance must be ≤ 50 %`). */
+const within = (name: string, bound: InputBound) => z.number({
+  error: (issue) => boundProblem(issue.input, name, bound) ?? `${name} must be a number`,
+}).superRefine((v, ctx) => {
+  const problem = boundProblem(v, name, bound);
+  if (problem) ctx.addIssue({ code: 'custom', message: problem, input: v });
+});
+const temperature = (name: string) => within(name, TEMPERATURE_BOUND);
 
 export const distributionSchema = z.enum(['rectangular', 'normal', 'triangular', 'u-shaped'], {
   error: 'distribution must be rectangular, normal, triangular or u-shaped',
 });
 
 export const resistorSchema = z.strictObject({
-  nominalOhm: positive('resistance', 'Ω'),
-  tolerancePct: nonNegative('tolerance', '%').default(1),
+  nominalOhm: within('resistance', BOUNDS.resistance),
+  tolerancePct: within('tolerance', BOUNDS.tolerance).default(1),
   toleranceDistribution: distributionSchema.default('rectangular'),
   /** For a normal tolerance: tolerance = k·σ. */
-  toleranceCoverageFactor: positive('coverage factor', '').default(2),
+  toleranceCoverageFactor: within('coverage factor', BOUNDS.coverageFactor).default(2),
   /** Bound ±TCR, sampled rectangular. */
-  tcrPpmPerK: nonNegative('TCR', 'ppm/K').default(0),
+  tcrPpmPerK: within('TCR', BOUNDS.tcr).default(0),
   /** Bound ±voltage coefficient, sampled rectangular. */
-  voltageCoefficientPpmPerV: nonNegative('voltage coefficient', 'ppm/V').default(0),
-  ratedVoltageV: positive('rated voltage', 'V').optional(),
-  ratedPowerW: positive('rated power', 'W').optional(),
-  thermalResistanceKPerW: nonNegative('thermal resistance', 'K/W').default(0),
+  voltageCoefficientPpmPerV: within('voltage coefficient', BOUNDS.voltageCoefficient).default(0),
+  ratedVoltageV: within('rated voltage', BOUNDS.ratedVoltage).optional(),
+  ratedPowerW: within('rated power', BOUNDS.ratedPower).optional(),
+  thermalResistanceKPerW: within('thermal resistance', BOUNDS.thermalResistance).default(0),
 });
 
 export const dividerSchema = z.strictObject({
@@ -34,39 +41,45 @@ export const dividerSchema = z.strictObject({
 });
 
 export const converterSchema = z.strictObject({
-  gainHzPerV: positive('converter gain', 'Hz/V'),
-  offsetHz: nonNegative('converter offset', 'Hz').default(0),
-  gainErrorPct: nonNegative('gain error', '%').default(0),
-  offsetErrorHz: nonNegative('offset error', 'Hz').default(0),
-  gainTempcoPpmPerK: nonNegative('gain tempco', 'ppm/K').default(0),
-  offsetDriftHzPerK: nonNegative('offset drift', 'Hz/K').default(0),
+  gainHzPerV: within('converter gain', BOUNDS.converterGain),
+  offsetHz: within('converter offset', BOUNDS.frequency).default(0),
+  gainErrorPct: within('gain error', BOUNDS.gainError).default(0),
+  offsetErrorHz: within('offset error', BOUNDS.frequency).default(0),
+  gainTempcoPpmPerK: within('gain tempco', BOUNDS.gainTempco).default(0),
+  offsetDriftHzPerK: within('offset drift', BOUNDS.offsetDrift).default(0),
   /** Peak of a bow 4x(1 − x) across full scale, random sign and size within ± this. */
-  nonlinearityPctFs: nonNegative('nonlinearity', '% FS').default(0),
-  fullScaleHz: positive('full-scale frequency', 'Hz'),
-  inputResistanceOhm: positive('converter input resistance', 'Ω').optional(),
+  nonlinearityPctFs: within('nonlinearity', BOUNDS.nonlinearity).default(0),
+  fullScaleHz: within('full-scale frequency', BOUNDS.fullScale),
+  inputResistanceOhm: within('converter input resistance', BOUNDS.inputResistance).optional(),
+  /** Bound ±, sampled rectangular; ignored without an input resistance. */
+  inputResistanceTolerancePct: within('input resistance tolerance', BOUNDS.inputResistanceTolerance).default(0),
+  /** Bound ±, sampled rectangular; ignored without an input resistance. */
+  inputResistanceTempcoPpmPerK: within('input resistance tempco', BOUNDS.inputResistanceTempco).default(0),
   /** Bound ±input bias current, sampled rectangular. */
-  inputBiasCurrentA: nonNegative('input bias current', 'A').default(0),
+  inputBiasCurrentA: within('input bias current', BOUNDS.inputBiasCurrent).default(0),
 });
 
 export const isolatorSchema = z.strictObject({
-  maxSignalRateBd: positive('isolator signalling rate', 'Bd'),
-  pulseWidthDistortionS: nonNegative('pulse-width distortion', 's').default(0),
+  maxSignalRateBd: within('isolator signalling rate', BOUNDS.signalRate),
+  pulseWidthDistortionS: within('pulse-width distortion', BOUNDS.pulseWidthDistortion).default(0),
 });
 
 export const periodCaptureSchema = z.strictObject({
   method: z.literal('period'),
-  clockHz: positive('timer clock', 'Hz'),
-  prescaler: z.number().int({ error: 'prescaler must be a whole number' }).min(1, { error: 'prescaler must be ≥ 1' }).default(1),
-  periodsAveraged: z.number().int({ error: 'periods averaged must be a whole number' }).min(1, { error: 'periods averaged must be ≥ 1' }).default(1),
+  clockHz: within('timer clock', BOUNDS.clock),
+  prescaler: z.number().int({ error: 'prescaler must be a whole number' }).min(1, { error: 'prescaler must be ≥ 1' })
+    .max(MAX_PRESCALER, { error: `prescaler must be ≤ ${MAX_PRESCALER}` }).default(1),
+  periodsAveraged: z.number().int({ error: 'periods averaged must be a whole number' }).min(1, { error: 'periods averaged must be ≥ 1' })
+    .max(MAX_PERIODS_AVERAGED, { error: `periods averaged must be ≤ ${MAX_PERIODS_AVERAGED}` }).default(1),
   counterBits: z.number().int().min(8, { error: 'counter width must be ≥ 8 bits' }).max(64, { error: 'counter width must be ≤ 64 bits' }).default(32),
-  clockTolerancePpm: nonNegative('clock tolerance', 'ppm').default(0),
+  clockTolerancePpm: within('clock tolerance', BOUNDS.clockTolerance).default(0),
 });
 
 export const gatedCaptureSchema = z.strictObject({
   method: z.literal('gated'),
-  gateS: positive('gate time', 's'),
+  gateS: within('gate time', BOUNDS.gate),
   counterBits: z.number().int().min(8, { error: 'counter width must be ≥ 8 bits' }).max(64, { error: 'counter width must be ≤ 64 bits' }).default(32),
-  clockTolerancePpm: nonNegative('clock tolerance', 'ppm').default(0),
+  clockTolerancePpm: within('clock tolerance', BOUNDS.clockTolerance).default(0),
 });
 
 export const captureSchema = z.discriminatedUnion('method', [periodCaptureSchema, gatedCaptureSchema], {
@@ -77,26 +90,26 @@ export const reconstructionSchema = z.discriminatedUnion('mode', [
   z.strictObject({ mode: z.literal('nominal') }),
   z.strictObject({
     mode: z.literal('calibrated'),
-    temperatureC: finite('calibration temperature'),
+    temperatureC: temperature('calibration temperature'),
     /** Two-point calibration voltages; default: the ends of the range. */
-    pointsV: z.tuple([finite('calibration point'), finite('calibration point')]).optional(),
+    pointsV: z.tuple([within('calibration point', BOUNDS.calibrationPoint), within('calibration point', BOUNDS.calibrationPoint)]).optional(),
     /** Expanded uncertainty (k = coverageFactor) of the calibrated gain, as a fraction. */
-    gainUncertaintyFraction: nonNegative('calibration gain uncertainty', '').default(0),
-    offsetUncertaintyV: nonNegative('calibration offset uncertainty', 'V').default(0),
-    coverageFactor: positive('calibration coverage factor', '').default(2),
+    gainUncertaintyFraction: within('calibration gain uncertainty', BOUNDS.calibrationGainUncertainty).default(0),
+    offsetUncertaintyV: within('calibration offset uncertainty', BOUNDS.calibrationOffsetUncertainty).default(0),
+    coverageFactor: within('calibration coverage factor', BOUNDS.coverageFactor).default(2),
   }),
 ], { error: 'reconstruction mode must be nominal or calibrated' });
 
 export const environmentSchema = z.strictObject({
-  minC: finite('minimum temperature'),
-  maxC: finite('maximum temperature'),
+  minC: temperature('minimum temperature'),
+  maxC: temperature('maximum temperature'),
   /** Temperature at which nominal values and tolerances hold. */
-  referenceC: finite('reference temperature').default(25),
+  referenceC: temperature('reference temperature').default(25),
 }).refine((e) => e.maxC >= e.minC, { error: 'temperature range reversed' });
 
 export const channelSchema = z.strictObject({
   name: z.string().trim().min(1, { error: 'channel name is required' }).max(80).default('channel'),
-  rangeV: z.strictObject({ minV: nonNegative('range minimum', 'V'), maxV: positive('range maximum', 'V') })
+  rangeV: z.strictObject({ minV: within('range minimum', BOUNDS.rangeMin), maxV: within('range maximum', BOUNDS.rangeMax) })
     .refine((r) => r.maxV > r.minV, { error: 'voltage range reversed' }),
   divider: dividerSchema,
   converter: converterSchema,

@@ -4,6 +4,7 @@ import type { ChannelDefinition } from '../../../shared/schemas/chain.js';
 import { HttpError } from '../../common/errors.js';
 import { AnalysisRun } from '../../entities/AnalysisRun.js';
 import type { StudyPool } from '../../workers/study-pool.js';
+import { firstNonFinite, nonFiniteReason } from './non-finite.js';
 import type { MarginStudyData } from '../margin/margin-study.js';
 import type { UncertaintyRunInputs } from '../../../shared/schemas/run-views.js';
 
@@ -111,6 +112,8 @@ export class RunScheduler {
       const result = run.kind === 'margin'
         ? await this.marginStudy(run, active, setProgress)
         : await this.uncertaintyStudy(run, active, setProgress);
+      const nonFinite = firstNonFinite(result);
+      if (nonFinite) throw new Error(nonFiniteReason(nonFinite));
       await this.finish(runId, { state: 'done', result: result as QueryDeepPartialEntity<AnalysisRun>['result'], progress: 1 }, startedAt);
     } catch (err) {
       const cancelled = active.controller.signal.aborted;

@@ -15,7 +15,27 @@ describe('nominal readouts', () => {
     expect(readouts.bleedCurrentA).toBeCloseTo(462 / (4e6 + loadedBottom), 15); // Ohm's law
     expect(readouts.stresses[0].powerW).toBeCloseTo((462 / (4e6 + loadedBottom)) ** 2 * 1e6, 12); // P = I²R
     expect(readouts.grid[0].countsPerReading).toBeCloseTo((16 * 48e6) / 1e3, 6); // N·f_clk/f ticks
-    expect(readouts.warnings).toEqual([]);
+    // The fixture's bottom resistor has a power rating but no voltage rating: that check is said not made.
+    expect(readouts.warnings.map((w) => `${w.level} ${w.code}@${w.where}`)).toEqual(['info rating-missing@divider.bottom']);
+  });
+
+  it('says a stress check could not be made when a rating is missing, with the stress it would have checked', () => {
+    const channel = channelSchema.parse({
+      ...demoChannelInput,
+      rangeV: { minV: 0, maxV: 1000 },
+      divider: { top: [{ nominalOhm: 990e3 }], bottom: { nominalOhm: 10e3, ratedVoltageV: 50, ratedPowerW: 0.1 } },
+      converter: { ...demoChannelInput.converter, inputResistanceOhm: undefined },
+    });
+    const unrated = nominalReadouts(channel).warnings.filter((w) => w.code === 'rating-missing');
+    // I = 1000 V / 1 MΩ = 1 mA; 990 V across 990 kΩ; P = V²/R = 0.99 W (Ohm's law, in the test)
+    expect(unrated).toEqual([{
+      code: 'rating-missing', level: 'info', where: 'divider.top[0]',
+      message: 'top resistor 1 voltage and power ratings not entered: stress not checked (990 V across it, dissipates 0.99 W at 1000 V)',
+    }]);
+    const rated = channelSchema.parse({ ...channel, divider: { ...channel.divider, top: [{ nominalOhm: 990e3, ratedVoltageV: 1500, ratedPowerW: 0.5 }] } });
+    const codes = nominalReadouts(rated).warnings.map((w) => `${w.code}@${w.where}`);
+    expect(codes).not.toContain('rating-missing@divider.top[0]');
+    expect(codes).toContain('over-power-rating@divider.top[0]'); // 0.99 W > 0.5 W, Ohm's law
   });
 
   it('warns where a resistor, the converter, the isolator or the counter is overstressed', () => {
