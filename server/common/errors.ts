@@ -1,4 +1,5 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
+import type { SaveConflict } from '../../shared/schemas/save-version.js';
 
 /** An error whose message is safe to show; anything else becomes a generic 500. */
 export class HttpError extends Error {
@@ -25,6 +26,10 @@ export class NotFoundError extends HttpError {
 export class ConflictError extends HttpError {
   constructor(message: string, fields?: Record<string, string>) { super(409, message, fields); }
 }
+/** A save based on an older version than the one stored: 409 with who saved the newer one and when. */
+export class StaleSaveError extends ConflictError {
+  constructor(message: string, readonly conflict: SaveConflict) { super(message); }
+}
 export class GoneError extends HttpError {
   constructor(message: string) { super(410, message); }
 }
@@ -42,7 +47,8 @@ function isBusy(err: unknown): boolean {
 /** The one place errors become responses: `{ error, fields? }`, never a stack or SQL. */
 export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
   if (err instanceof HttpError) {
-    res.status(err.status).json(err.fields ? { error: err.message, fields: err.fields } : { error: err.message });
+    const conflict = err instanceof StaleSaveError ? { conflict: err.conflict } : {};
+    res.status(err.status).json(err.fields ? { error: err.message, fields: err.fields, ...conflict } : { error: err.message, ...conflict });
     return;
   }
   if (isBusy(err)) {

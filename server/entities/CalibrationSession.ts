@@ -52,6 +52,20 @@ export class CalibrationSession {
   @OneToMany('CalibrationPoint', (p: CalibrationPoint) => p.session)
   points: CalibrationPoint[];
 
+  /** Up by one with every change of the points (replace, import, exclusion); a points save names the version it started from. */
+  @Column('integer', { default: 1 })
+  pointsVersion: number;
+
+  @ManyToOne(() => User, { nullable: true, onDelete: 'SET NULL' })
+  @JoinColumn({ name: 'pointsSavedById', foreignKeyConstraintName: 'FK_calibration_sessions_points_saved_by' })
+  pointsSavedBy: User | null;
+
+  @Column('integer', { nullable: true })
+  pointsSavedById: number | null;
+
+  @Column('datetime', { nullable: true })
+  pointsSavedAt: Date | null;
+
   @CreateDateColumn({ type: 'datetime', default: () => 'CURRENT_TIMESTAMP' })
   createdAt: Date;
 

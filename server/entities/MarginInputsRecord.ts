@@ -20,6 +20,10 @@ export class MarginInputsRecord {
   @Column('simple-json')
   inputs: MarginInputs;
 
+  /** Up by one with every save (1 for the first); 0 stands for "nothing stored" in the API. */
+  @Column('integer', { default: 1 })
+  version: number;
+
   @ManyToOne(() => User, { nullable: true, onDelete: 'SET NULL' })
   @JoinColumn({ name: 'updatedById', foreignKeyConstraintName: 'FK_margin_inputs_updated_by' })
   updatedBy: User | null;

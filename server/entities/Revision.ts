@@ -41,6 +41,18 @@ export class Revision {
   @OneToMany('Channel', (c: Channel) => c.revision)
   channels: Channel[];
 
+  /** Up by one with every saved change of the channels; a save names the version it started from. */
+  @Column('integer', { default: 1 })
+  version: number;
+
+  @ManyToOne(() => User, { nullable: true, onDelete: 'SET NULL' })
+  @JoinColumn({ name: 'updatedById', foreignKeyConstraintName: 'FK_revisions_updated_by' })
+  updatedBy: User | null;
+
+  /** Who saved the channels last; null until the first save after the revision was started. */
+  @Column('integer', { nullable: true })
+  updatedById: number | null;
+
   @CreateDateColumn({ type: 'datetime', default: () => 'CURRENT_TIMESTAMP' })
   createdAt: Date;
 

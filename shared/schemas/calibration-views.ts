@@ -145,6 +145,11 @@ export interface SessionDetail extends SessionSummary {
   board: { id: number; serialNumber: string; revisionId: number; revisionLetter: string; designId: number; designName: string };
   points: StoredPoint[];
   analysis: SessionAnalysis;
+  /** Up by one with every change of the points (replace, import, exclusion); a points save names the version it was based on. */
+  pointsVersion: number;
+  /** Who changed the points last and when (null before the first change). */
+  pointsSavedBy: PersonRef | null;
+  pointsSavedAt: string | null;
 }
 
 export interface CalibrationOverview {

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { channelKeySchema } from './designs.js';
+import { baseVersionSchema } from './save-version.js';
 
 const finite = (name: string) =>
   z.number({ error: `${name} must be a number` }).refine(Number.isFinite, { error: `${name} must be finite` });
@@ -72,11 +73,14 @@ export type CalibrationPointBody = z.infer<typeof calibrationPointSchema>;
 
 export const pointsReplaceSchema = z.strictObject({
   points: z.array(calibrationPointSchema).max(2000, { error: 'at most 2000 points per session' }),
+  /** The session's pointsVersion the table was edited from; a stale one is refused. */
+  baseVersion: baseVersionSchema,
 });
 
 export const pointExclusionSchema = z.strictObject({
   excluded: z.boolean({ error: 'excluded must be true or false' }),
   reason: z.string().trim().max(300, { error: 'reason must be at most 300 characters' }).default(''),
+  baseVersion: baseVersionSchema,
 }).refine((p) => !p.excluded || p.reason.length > 0, { error: 'give a reason for excluding a point', path: ['reason'] });
 
 /** Which CSV columns hold what; the import asks for this mapping after reading the header. */

@@ -51,6 +51,10 @@ export interface RevisionChannel {
 export interface RevisionDetail extends RevisionSummary {
   design: { id: number; name: string; owner: PersonRef };
   channels: RevisionChannel[];
+  /** Goes up by one with every saved change of the channels; a save names the version it was based on. */
+  version: number;
+  /** Who saved the channels last (null before the first save after creation). */
+  updatedBy: PersonRef | null;
 }
 
 /** One audit entry about a revision, newest first in the history list. */

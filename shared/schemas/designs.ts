@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { channelSchema } from './chain.js';
 import { listQuerySchema } from './common.js';
+import { baseVersionSchema } from './save-version.js';
 
 export const REVISION_STATES = ['draft', 'in_review', 'approved', 'changes_requested'] as const;
 export type RevisionState = (typeof REVISION_STATES)[number];
@@ -51,6 +52,8 @@ export const revisionChannelsSchema = z.strictObject({
     .max(8, { error: 'a revision has at most 8 channels' })
     .refine((cs) => new Set(cs.map((c) => c.key)).size === cs.length, { error: 'channel keys must be different' }),
   note: z.string().max(2000, { error: 'note must be at most 2000 characters' }).optional(),
+  /** The revision version the channels were edited from; a stale one is refused. */
+  baseVersion: baseVersionSchema,
 });
 export type RevisionChannelsBody = z.infer<typeof revisionChannelsSchema>;
 

@@ -35,7 +35,8 @@ export interface RunView<Result = unknown> {
 
 /** What an uncertainty study was asked to compute: the revision's channels as they were, and its settings. */
 export interface UncertaintyRunInputs {
-  channels: { key: string; definition: ChannelDefinition }[];
+  /** `id` is the revision's channel id (kept across saves); runs stored before ids were kept stable lack it. */
+  channels: { id?: number; key: string; definition: ChannelDefinition }[];
   coverageProbability: number;
   gridPoints: number;
 }
@@ -54,4 +55,7 @@ export interface MarginInputsView {
   editable: boolean;
   updatedAt: string | null;
   updatedById: number | null;
+  /** 0 while nothing is stored; up by one with every save. A save names the version it was based on. */
+  version: number;
+  updatedBy: PersonRef | null;
 }

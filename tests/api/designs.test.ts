@@ -1,4 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { putChannels } from '../helpers/saves.js';
 import { createTestApp, type TestApp } from '../helpers/test-app.js';
 import { Channel } from '../../server/entities/Channel.js';
 import { Revision } from '../../server/entities/Revision.js';
@@ -54,14 +55,14 @@ describe('designs and revisions', () => {
     const rev = (await designer.get(`/api/revisions/${revId}`)).body.revision;
     const channels = rev.channels.map((c: { key: string; definition: unknown }) => ({ key: c.key, definition: c.definition }));
     channels[0].definition.divider.bottom.nominalOhm = 33.2e3;
-    const ok = await designer.put(`/api/revisions/${revId}/channels`).send({ channels });
+    const ok = await putChannels(designer, revId, { channels });
     expect(ok.status).toBe(200);
     expect(ok.body.revision.channels[0].definition.divider.bottom.nominalOhm).toBe(33200);
 
     const broken = structuredClone(channels);
     broken[1].definition.divider.bottom.nominalOhm = 0;
     broken[1].definition.capture = { method: 'gated', gateS: 0 };
-    const refused = await designer.put(`/api/revisions/${revId}/channels`).send({ channels: broken });
+    const refused = await putChannels(designer, revId, { channels: broken });
     expect(refused.status).toBe(400);
     expect(refused.body.fields['channels.1.definition.divider.bottom.nominalOhm']).toBe('resistance must be > 0 Ω');
     expect(refused.body.fields['channels.1.definition.capture.gateS']).toBe('gate time must be > 0 s');
@@ -76,7 +77,7 @@ describe('designs and revisions', () => {
     const revA = body.design.revisions[0].id;
     await t.dataSource.getRepository(Revision).update({ id: revA }, { state: 'approved' });
     const rev = (await designer.get(`/api/revisions/${revA}`)).body.revision;
-    const edit = await designer.put(`/api/revisions/${revA}/channels`).send({ channels: rev.channels.map((c: { key: string; definition: unknown }) => ({ key: c.key, definition: c.definition })) });
+    const edit = await putChannels(designer, revA, { channels: rev.channels.map((c: { key: string; definition: unknown }) => ({ key: c.key, definition: c.definition })) });
     expect(edit.status).toBe(409);
     expect(edit.body.error).toBe('revision A is approved and cannot be edited; start the next revision from it');
     const next = await designer.post(`/api/designs/${body.design.id}/revisions`).send({ fromRevisionId: revA });

@@ -1,4 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { putChannels, putMarginInputs } from '../helpers/saves.js';
 import { createTestApp, type TestApp } from '../helpers/test-app.js';
 
 type Agent = Awaited<ReturnType<TestApp['signIn']>>;
@@ -55,7 +56,7 @@ describe('review workflow', () => {
     expect(Object.keys(half.body.fields)).toEqual(['marginStudy']);
     await finishStudies(designer, revisionId, ['margin']);
     const inputs = (await designer.get(`/api/revisions/${revisionId}/margin-inputs`)).body.inputs;
-    await designer.put(`/api/revisions/${revisionId}/margin-inputs`).send({ ...inputs, timeoutS: 6 });
+    await putMarginInputs(designer, revisionId, { ...inputs, timeoutS: 6 });
     const stale = await designer.post(`/api/revisions/${revisionId}/submit`);
     expect(stale.status).toBe(409);
     expect(stale.body.fields).toEqual({ marginStudy: 'the latest finished margin study used older inputs; run it again' });
@@ -65,7 +66,7 @@ describe('review workflow', () => {
   it('submits, mails every lead, and lets a lead approve: locked, designer told, all audited', async () => {
     const { designId, revisionId } = await newRevision(designer, 'Sign me off');
     const defaults = (await designer.get(`/api/revisions/${revisionId}/margin-inputs`)).body.inputs;
-    expect((await designer.put(`/api/revisions/${revisionId}/margin-inputs`).send({ ...defaults, timeoutS: 4.5 })).status).toBe(200);
+    expect((await putMarginInputs(designer, revisionId, { ...defaults, timeoutS: 4.5 })).status).toBe(200);
     await finishStudies(designer, revisionId);
     const before = (await t.outbox()).length;
     const submitted = await designer.post(`/api/revisions/${revisionId}/submit`);
@@ -94,11 +95,11 @@ describe('review workflow', () => {
     expect(toDesigner.text).toContain('Margins hold; window catches all four faults.');
 
     const rev = (await designer.get(`/api/revisions/${revisionId}`)).body.revision;
-    const edit = await designer.put(`/api/revisions/${revisionId}/channels`).send({ channels: rev.channels.map((c: { key: string; definition: unknown }) => ({ key: c.key, definition: c.definition })) });
+    const edit = await putChannels(designer, revisionId, { channels: rev.channels.map((c: { key: string; definition: unknown }) => ({ key: c.key, definition: c.definition })) });
     expect(edit.status).toBe(409);
     expect(edit.body.error).toMatch(/approved and cannot be edited/);
     const inputs = (await designer.get(`/api/revisions/${revisionId}/margin-inputs`)).body.inputs;
-    expect((await designer.put(`/api/revisions/${revisionId}/margin-inputs`).send(inputs)).status).toBe(409);
+    expect((await putMarginInputs(designer, revisionId, inputs)).status).toBe(409);
     expect((await lead.post(`/api/revisions/${revisionId}/approve`).send({})).status).toBe(409); // not in review any more
 
     const history = (await lead.get(`/api/revisions/${revisionId}/history`)).body.items;

@@ -29,6 +29,9 @@ export function toSessionDetail(s: CalibrationSession, analysis: SessionAnalysis
     points: s.points.map((p) => ({ id: p.id, position: p.position, appliedV: p.appliedV, frequencyHz: p.frequencyHz, counts: p.counts,
       uncertaintyHz: p.uncertaintyHz, excluded: p.excluded, excludedReason: p.excludedReason })),
     analysis,
+    pointsVersion: s.pointsVersion,
+    pointsSavedBy: s.pointsSavedBy ? { id: s.pointsSavedBy.id, displayName: s.pointsSavedBy.displayName } : null,
+    pointsSavedAt: isoTimeOrNull(s.pointsSavedAt),
   };
 }
 

@@ -77,7 +77,7 @@ export function calibrationRoutes({ dataSource, mailer, config }: AppDeps): Rout
     defineRoute({
       method: 'put', path: '/:id/points', access: CALIBRATION_WRITERS, params: idParamSchema, body: pointsReplaceSchema,
       handler: async ({ params, body, user, res }) => {
-        await writePoints(dataSource, user!, params.id, body.points, 'replace');
+        await writePoints(dataSource, user!, params.id, body.points, 'replace', body.baseVersion);
         res.json({ session: await detail(params.id) });
       },
     }),
@@ -102,7 +102,7 @@ export function calibrationRoutes({ dataSource, mailer, config }: AppDeps): Rout
       handler: async ({ params, body, user, res }) => {
         const session = await getSession(dataSource, params.id);
         if (!session.points.some((p) => p.id === params.pointId)) throw new BadRequestError(`point ${params.pointId} is not part of session ${params.id}`);
-        await setExclusion(dataSource, user!, params.pointId, body.excluded, body.reason);
+        await setExclusion(dataSource, user!, params.pointId, body.excluded, body.reason, body.baseVersion);
         res.json({ session: await detail(params.id) });
       },
     }),

@@ -3,6 +3,7 @@ import type { CalibrationPointBody, SessionCreateBody, SessionPatchBody } from '
 import type { ChannelDefinition } from '../../../shared/schemas/chain.js';
 import { recordAudit } from '../../common/audit.js';
 import { BadRequestError, ConflictError, NotFoundError } from '../../common/errors.js';
+import { assertCurrentVersion } from '../../common/save-version.js';
 import type { Mailer } from '../../common/mail.js';
 import { Board } from '../../entities/Board.js';
 import { CalibrationPoint } from '../../entities/CalibrationPoint.js';
@@ -19,7 +20,7 @@ export const MIN_POINTS_TO_COMPLETE = 3;
 export async function getSession(db: DataSource | EntityManager, id: number): Promise<CalibrationSession> {
   const session = await db.getRepository(CalibrationSession).findOne({
     where: { id },
-    relations: { board: { revision: { design: { owner: true } } }, tester: true, points: true },
+    relations: { board: { revision: { design: { owner: true } } }, tester: true, points: true, pointsSavedBy: true },
   });
   if (!session) throw new NotFoundError(`no calibration session with id ${id}`);
   session.points.sort((a, b) => a.position - b.position);
@@ -63,13 +64,29 @@ export async function updateSession(dataSource: DataSource, actor: User, id: num
   return getSession(dataSource, id);
 }
 
-/** Replaces or appends points in one transaction; the table editor replaces, an import appends. */
+/**
+ * Marks a change of the session's points: refuses it when it was based on an older points version (a
+ * `baseVersion` left out means "no basis to check": an import only appends, and the seed is trusted), then
+ * moves the version on with who and when, compare-and-set so two changes never both build on one version.
+ */
+async function bumpPointsVersion(m: EntityManager, session: CalibrationSession, actor: User, baseVersion: number | undefined): Promise<void> {
+  assertCurrentVersion('calibration points', baseVersion, { version: session.pointsVersion, savedBy: session.pointsSavedBy, savedAt: session.pointsSavedAt });
+  const now = new Date();
+  const bumped = await m.getRepository(CalibrationSession).update(
+    { id: session.id, pointsVersion: session.pointsVersion },
+    { pointsVersion: session.pointsVersion + 1, pointsSavedById: actor.id, pointsSavedAt: now, updatedAt: now },
+  );
+  if (!bumped.affected) throw new ConflictError(`the points of calibration session ${session.id} changed while saving; reload them and save again`);
+}
+
+/** Replaces or appends points in one transaction; the table editor replaces (with its base version), an import appends. */
 export async function writePoints(
-  dataSource: DataSource, actor: User, id: number, points: CalibrationPointBody[], mode: 'replace' | 'append',
+  dataSource: DataSource, actor: User, id: number, points: CalibrationPointBody[], mode: 'replace' | 'append', baseVersion?: number,
 ): Promise<CalibrationSession> {
   await dataSource.transaction(async (m) => {
     const session = await getSession(m, id);
     assertEditable(session);
+    await bumpPointsVersion(m, session, actor, baseVersion);
     const repo = m.getRepository(CalibrationPoint);
     if (mode === 'replace') await repo.delete({ sessionId: id });
     const start = mode === 'replace' ? 0 : session.points.reduce((n, p) => Math.max(n, p.position + 1), 0);
@@ -82,11 +99,15 @@ export async function writePoints(
 }
 
 /** Excludes (with a reason) or restores one point; excluded points stay stored. */
-export async function setExclusion(dataSource: DataSource, actor: User, pointId: number, excluded: boolean, reason: string): Promise<CalibrationSession> {
+export async function setExclusion(
+  dataSource: DataSource, actor: User, pointId: number, excluded: boolean, reason: string, baseVersion?: number,
+): Promise<CalibrationSession> {
   const sessionId = await dataSource.transaction(async (m) => {
     const point = await m.getRepository(CalibrationPoint).findOneBy({ id: pointId });
     if (!point) throw new NotFoundError(`no calibration point with id ${pointId}`);
-    assertEditable(await getSession(m, point.sessionId));
+    const session = await getSession(m, point.sessionId);
+    assertEditable(session);
+    await bumpPointsVersion(m, session, actor, baseVersion);
     await m.getRepository(CalibrationPoint).update({ id: pointId }, { excluded, excludedReason: excluded ? reason : '' });
     await recordAudit(m, actor.id, excluded ? 'calibration.exclude' : 'calibration.restore', `calibration:${point.sessionId}`, { point: pointId, reason });
     return point.sessionId;

@@ -39,5 +39,7 @@ export function toRevisionDetail(r: Revision): RevisionDetail {
     ...toRevisionSummary(r),
     design: { id: r.design.id, name: r.design.name, owner: { id: r.design.owner.id, displayName: r.design.owner.displayName } },
     channels: r.channels.map((c) => ({ id: c.id, key: c.key, position: c.position, definition: c.definition })),
+    version: r.version,
+    updatedBy: r.updatedBy ? { id: r.updatedBy.id, displayName: r.updatedBy.displayName } : null,
   };
 }

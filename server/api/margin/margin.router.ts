@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { idParamSchema } from '../../../shared/schemas/common.js';
-import { marginInputsSchema, marginStudyRequestSchema } from '../../../shared/schemas/margin.js';
+import { marginStudyRequestSchema } from '../../../shared/schemas/margin.js';
+import { marginInputsSaveSchema } from '../../../shared/schemas/margin-inputs-save.js';
 import type { AppDeps } from '../../common/deps.js';
 import { defineRoute, type RouteSpec } from '../../common/routes.js';
 import { DESIGN_READERS, DESIGN_WRITERS } from '../designs/designs.router.js';
@@ -17,6 +18,7 @@ const noQuery = z.strictObject({});
 
 const inputsView = (s: StoredMarginInputs, editable: boolean): MarginInputsView => ({
   inputs: s.inputs, stored: s.stored, editable, updatedAt: s.updatedAt ? isoTime(s.updatedAt) : null, updatedById: s.updatedById,
+  version: s.version, updatedBy: s.updatedBy ? { id: s.updatedBy.id, displayName: s.updatedBy.displayName } : null,
 });
 
 /** Margin inputs and margin studies of a revision (mounted under /api/revisions). */
@@ -30,9 +32,10 @@ export function marginRoutes({ dataSource, scheduler }: AppDeps): RouteSpec[] {
       },
     }),
     defineRoute({
-      method: 'put', path: '/:id/margin-inputs', access: DESIGN_WRITERS, params: idParamSchema, body: marginInputsSchema,
+      method: 'put', path: '/:id/margin-inputs', access: DESIGN_WRITERS, params: idParamSchema, body: marginInputsSaveSchema,
       handler: async ({ params, body, user, res }) => {
-        res.json(inputsView(await saveMarginInputs(dataSource, user!, params.id, body), true));
+        const { baseVersion, ...inputs } = body;
+        res.json(inputsView(await saveMarginInputs(dataSource, user!, params.id, inputs, baseVersion), true));
       },
     }),
     defineRoute({

@@ -3,6 +3,7 @@ import type { DataSource, EntityManager } from 'typeorm';
 import { marginInputsSchema, type MarginInputs, type MarginStudyRequest } from '../../../shared/schemas/margin.js';
 import { recordAudit } from '../../common/audit.js';
 import { ConflictError } from '../../common/errors.js';
+import { assertCurrentVersion } from '../../common/save-version.js';
 import { AnalysisRun } from '../../entities/AnalysisRun.js';
 import { MarginInputsRecord } from '../../entities/MarginInputsRecord.js';
 import type { Revision } from '../../entities/Revision.js';
@@ -13,6 +14,7 @@ import type { RunScheduler } from '../runs/run-scheduler.js';
 import { boardReadingErrors } from '../calibration/board-reading-errors.js';
 import { DEFAULT_MARGIN_INPUTS } from './margin-defaults.js';
 import type { MarginStudyData } from './margin-study.js';
+import { assertBoardOfDesign } from './board-membership.js';
 
 export interface StoredMarginInputs {
   inputs: MarginInputs;
@@ -20,27 +22,46 @@ export interface StoredMarginInputs {
   stored: boolean;
   updatedAt: Date | null;
   updatedById: number | null;
+  /** 0 while nothing is stored; up by one with every save. */
+  version: number;
+  updatedBy: User | null;
 }
 
 /** The revision's margin inputs, or the defaults when none are saved. */
 export async function marginInputsOf(db: DataSource | EntityManager, revisionId: number): Promise<StoredMarginInputs> {
-  const record = await db.getRepository(MarginInputsRecord).findOneBy({ revisionId });
-  if (!record) return { inputs: structuredClone(DEFAULT_MARGIN_INPUTS), stored: false, updatedAt: null, updatedById: null };
-  return { inputs: record.inputs, stored: true, updatedAt: record.updatedAt, updatedById: record.updatedById };
+  const record = await db.getRepository(MarginInputsRecord).findOne({ where: { revisionId }, relations: { updatedBy: true } });
+  if (!record) return { inputs: structuredClone(DEFAULT_MARGIN_INPUTS), stored: false, updatedAt: null, updatedById: null, version: 0, updatedBy: null };
+  return { inputs: record.inputs, stored: true, updatedAt: record.updatedAt, updatedById: record.updatedById, version: record.version, updatedBy: record.updatedBy };
 }
 
 /** What a margin study depends on: the channels (their reading errors, the link divider) and the margin inputs. */
 export const marginHash = (channels: { key: string; definition: unknown }[], inputs: MarginInputs) =>
   contentHash({ channels: channels.map((c) => ({ key: c.key, definition: c.definition })), margin: inputs });
 
-/** Saves a draft's margin inputs (validated again after defaults, so the stored form is complete). */
-export async function saveMarginInputs(dataSource: DataSource, actor: User, revisionId: number, inputs: MarginInputs): Promise<StoredMarginInputs> {
+/**
+ * Saves a draft's margin inputs (validated again after defaults, so the stored form is complete), refusing a
+ * save based on an older version; `baseVersion` is left out only by trusted callers (the demo seed).
+ */
+export async function saveMarginInputs(
+  dataSource: DataSource, actor: User, revisionId: number, inputs: MarginInputs, baseVersion?: number,
+): Promise<StoredMarginInputs> {
   await dataSource.transaction(async (m) => {
     const revision = await getRevision(m, revisionId);
     assertDraft(revision);
+    const current = await marginInputsOf(m, revisionId);
+    assertCurrentVersion('margin inputs', baseVersion, { version: current.version, savedBy: current.updatedBy, savedAt: current.updatedAt });
+    const parsed = marginInputsSchema.parse(inputs);
+    if (parsed.readingErrors.mode === 'board') {
+      await assertBoardOfDesign(m, revision, parsed.readingErrors.boardId, [parsed.packChannelKey, parsed.linkChannelKey]);
+    }
     const repo = m.getRepository(MarginInputsRecord);
-    const existing = await repo.findOneBy({ revisionId });
-    await repo.save(repo.create({ ...(existing ?? {}), revisionId, inputs: marginInputsSchema.parse(inputs), updatedById: actor.id }));
+    const changes = { inputs: parsed, updatedById: actor.id, updatedAt: new Date(), version: current.version + 1 };
+    if (!current.stored) await repo.insert({ revisionId, ...changes });
+    else {
+      // Compare-and-set on the version read above, so two saves can never both build on it.
+      const bumped = await repo.update({ revisionId, version: current.version }, changes);
+      if (!bumped.affected) throw new ConflictError(`the margin inputs of revision ${revision.letter} changed while saving; reload them and save again`);
+    }
     await recordAudit(m, actor.id, 'margin.inputs', `revision:${revisionId}`, null);
   });
   return marginInputsOf(dataSource, revisionId);
@@ -60,14 +81,15 @@ function channelPair(revision: Revision, inputs: MarginInputs) {
       throw new ConflictError(`revision ${revision.letter} has no channel '${key}' for the margin study; set ${field} to one of ${revision.channels.map((c) => c.key).join(', ')}`,
         { [field]: `no channel '${key}'` });
     }
-    return { key: channel.key, definition: channel.definition };
+    return { id: channel.id, key: channel.key, definition: channel.definition };
   };
   return { pack: find(inputs.packChannelKey, 'packChannelKey'), link: find(inputs.linkChannelKey, 'linkChannelKey') };
 }
 
-async function boardErrors(dataSource: DataSource, inputs: MarginInputs, packKey: string, linkKey: string): Promise<MarginStudyData['board']> {
+async function boardErrors(dataSource: DataSource, revision: Revision, inputs: MarginInputs, packKey: string, linkKey: string): Promise<MarginStudyData['board']> {
   if (inputs.readingErrors.mode !== 'board') return undefined;
   const boardId = inputs.readingErrors.boardId;
+  await assertBoardOfDesign(dataSource, revision, boardId, [packKey, linkKey]);
   const board = await boardReadingErrors(dataSource, boardId);
   const pack = board.channels[packKey];
   const link = board.channels[linkKey];
@@ -84,7 +106,7 @@ export async function marginStudyData(
 ): Promise<{ data: MarginStudyData; hash: string }> {
   const { inputs } = await marginInputsOf(dataSource, revision.id);
   const { pack, link } = channelPair(revision, inputs);
-  const board = await boardErrors(dataSource, inputs, pack.key, link.key);
+  const board = await boardErrors(dataSource, revision, inputs, pack.key, link.key);
   const data: MarginStudyData = {
     inputs, pack, link, ...(board ? { board } : {}),
     seed: request.seed, trials: request.trials, faultTrials: request.faultTrials, readingErrorTrials: request.readingErrorTrials,

@@ -3,6 +3,7 @@ import type { RevisionChannelsBody } from '../../../shared/schemas/designs.js';
 import { REVISION_STATE_LABELS } from '../../../shared/schemas/designs.js';
 import { recordAudit } from '../../common/audit.js';
 import { ConflictError, NotFoundError } from '../../common/errors.js';
+import { assertCurrentVersion } from '../../common/save-version.js';
 import { AuditEvent } from '../../entities/AuditEvent.js';
 import { Channel } from '../../entities/Channel.js';
 import { Design } from '../../entities/Design.js';
@@ -14,7 +15,7 @@ import { copyMarginInputs } from '../margin/margin.service.js';
 export async function getRevision(dataSource: DataSource | EntityManager, id: number): Promise<Revision> {
   const revision = await dataSource.getRepository(Revision).findOne({
     where: { id },
-    relations: { design: { owner: true }, channels: true, createdBy: true },
+    relations: { design: { owner: true }, channels: true, createdBy: true, updatedBy: true },
   });
   if (!revision) throw new NotFoundError(`no revision with id ${id}`);
   revision.channels.sort((a, b) => a.position - b.position);
@@ -33,17 +34,41 @@ export function assertDraft(revision: Revision): void {
   }
 }
 
-/** Replaces the channels of a draft revision in one transaction. */
-export async function replaceChannels(dataSource: DataSource, actor: User, id: number, body: RevisionChannelsBody): Promise<Revision> {
+/**
+ * Writes a revision's channels keeping each channel's id: a key still present is updated in place, a new
+ * key inserted, a dropped key deleted. Ids appear in API answers and run snapshots, so they must not churn.
+ */
+async function writeChannels(m: EntityManager, revisionId: number, existing: Channel[], wanted: RevisionChannelsBody['channels']): Promise<void> {
+  const repo = m.getRepository(Channel);
+  const byKey = new Map(existing.map((c) => [c.key, c]));
+  const kept = new Set(wanted.map((c) => c.key));
+  const dropped = existing.filter((c) => !kept.has(c.key)).map((c) => c.id);
+  if (dropped.length > 0) await repo.delete(dropped);
+  for (const [position, c] of wanted.entries()) {
+    const old = byKey.get(c.key);
+    if (old) await repo.update({ id: old.id }, { position, definition: c.definition });
+    else await repo.insert({ revisionId, key: c.key, position, definition: c.definition });
+  }
+}
+
+/** A channels save; `baseVersion` is left out only by trusted callers (the demo seed), never by the API. */
+export type ChannelsSave = Omit<RevisionChannelsBody, 'baseVersion'> & { baseVersion?: number };
+
+/** Replaces the channels of a draft revision in one transaction, refusing a save based on an older version. */
+export async function replaceChannels(dataSource: DataSource, actor: User, id: number, body: ChannelsSave): Promise<Revision> {
   await dataSource.transaction(async (m) => {
     const revision = await getRevision(m, id);
     assertDraft(revision);
-    const channels = m.getRepository(Channel);
-    await channels.delete({ revisionId: id });
-    await channels.save(body.channels.map((c, position) => channels.create({ revisionId: id, key: c.key, position, definition: c.definition })));
+    assertCurrentVersion('channels', body.baseVersion, { version: revision.version, savedBy: revision.updatedBy, savedAt: revision.updatedAt });
     if (body.note !== undefined) revision.note = body.note;
     revision.updatedAt = new Date();
-    await m.getRepository(Revision).save({ id, note: revision.note, updatedAt: revision.updatedAt });
+    // Compare-and-set on the version read above, so two saves can never both build on it.
+    const bumped = await m.getRepository(Revision).update(
+      { id, version: revision.version },
+      { note: revision.note, updatedAt: revision.updatedAt, updatedById: actor.id, version: revision.version + 1 },
+    );
+    if (!bumped.affected) throw new ConflictError(`revision ${revision.letter} changed while saving; reload it and save again`);
+    await writeChannels(m, id, revision.channels, body.channels);
     await m.getRepository(Design).update({ id: revision.designId }, { updatedAt: new Date() });
     await recordAudit(m, actor.id, 'revision.edit', `revision:${id}`, { channels: body.channels.map((c) => c.key) });
   });

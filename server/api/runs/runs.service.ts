@@ -24,7 +24,7 @@ export async function requestUncertaintyStudy(
 ): Promise<AnalysisRun> {
   const revision = await getRevision(dataSource, revisionId);
   await scheduler.assertUnderLimit(actor.id);
-  const channels = revision.channels.map((c) => ({ key: c.key, definition: c.definition }));
+  const channels = revision.channels.map((c) => ({ id: c.id, key: c.key, definition: c.definition }));
   const inputs: UncertaintyRunInputs = { channels, coverageProbability: body.coverageProbability, gridPoints: body.gridPoints };
   const adaptive = body.trials === undefined;
   const run = await dataSource.transaction(async (m) => {
