@@ -1,9 +1,11 @@
 import { describe, it, expect } from 'vitest';
 import { channelSchema, type ChannelDefinitionInput } from '../../../shared/schemas/chain.js';
 import { compileChannel } from '../../../shared/chain/index.js';
-import { channelErrorFunction, channelWorstCase, type MeasurementFunction, type UncertainInput } from '../../../shared/propagation/index.js';
+import {
+  channelErrorFunction, channelKernel, channelWorstCase, runMonteCarlo, type MeasurementFunction, type UncertainInput,
+} from '../../../shared/propagation/index.js';
 import { deepFreeze } from '../../fixtures/deep-freeze.js';
-import { demoChannelInput } from '../../fixtures/demo-channel.js';
+import { demoChannel, demoChannelInput } from '../../fixtures/demo-channel.js';
 
 /** Every corner of the bounded inputs, temperature at its two ends, in Gray-code order. */
 function everyCorner(inputs: readonly UncertainInput[], model: MeasurementFunction) {
@@ -87,6 +89,32 @@ describe('worst case against every corner', () => {
         expect(engine[g].maximum).toBeCloseTo(truth.maximum, 9); // exhaustive enumeration over all 2^n corners (in this test)
         expect(engine[g].minimum).toBeCloseTo(truth.minimum, 9); // exhaustive enumeration over all 2^n corners (in this test)
       }
+    });
+  }
+});
+
+describe('worst case against Monte Carlo trials', () => {
+  const chains: Record<string, ReturnType<typeof chain>> = {
+    'demo channel': deepFreeze(demoChannel()),
+    'eight top resistors over −40…85 °C': eightTop,
+    // Rectangular inputs only: a normal input enters the worst case at ±k·σ, which a trial may pass.
+    'calibrated read-back': chain({
+      ...demoChannelInput, environment: { minC: -40, maxC: 85, referenceC: 25 },
+      reconstruction: { mode: 'calibrated', temperatureC: 20, gainUncertaintyFraction: 0, offsetUncertaintyV: 0, coverageFactor: 2 },
+    }),
+    'gated count, self-heated': chain({
+      ...demoChannelInput, capture: { method: 'gated', gateS: 0.05, clockTolerancePpm: 100 },
+      divider: { ...demoChannelInput.divider, top: demoChannelInput.divider.top.map((r) => ({ ...r, thermalResistanceKPerW: 600 })) },
+    }),
+  };
+  for (const [name, channel] of Object.entries(chains)) {
+    it(`bounds every trial at every voltage: ${name}`, () => {
+      const compiled = compileChannel(channel, 11);
+      const mc = runMonteCarlo(channelKernel(compiled), { seed: 23, trials: 20_000 });
+      channelWorstCase(compiled).forEach((point, g) => {
+        expect(point.maximum).toBeGreaterThanOrEqual(mc.outputs[g].maximum); // a worst case bounds every trial (definition)
+        expect(point.minimum).toBeLessThanOrEqual(mc.outputs[g].minimum); // a worst case bounds every trial (definition)
+      });
     });
   }
 });
