@@ -119,7 +119,10 @@ export interface MarginCriterion {
   /** True only when the criterion is met (for probabilities: its 95 % upper bound is within the allowance). */
   pass: boolean;
   outcome: CriterionOutcome;
-  /** Probabilities only: one-sided 95 % upper confidence bound of the value, allowing for shared boards. */
+  /**
+   * Probabilities only: one-sided 95 % upper confidence bound of the unwanted event (for a fault case,
+   * of missing it), allowing for the boards the trials share.
+   */
   upperBound?: number;
   value: number | null;
   limit: number | null;
