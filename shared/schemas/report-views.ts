@@ -25,9 +25,18 @@ export interface ReportBudgetRow {
   sharePct: number;
 }
 
+/** A design warning of one channel as the editor shows it; 'info' when a check could not be made. */
+export interface ReportChainWarning {
+  level: 'warning' | 'info';
+  message: string;
+  where: string;
+}
+
 export interface ReportUncertaintyChannel {
   key: string;
   name: string;
+  /** Evaluation voltages where some reading wraps the counter (the numbers include the wrap). */
+  counterOverflowV?: number[];
   trials: number;
   coverageProbability: number;
   gumAdequate: boolean;
@@ -80,7 +89,7 @@ export interface RevisionReport {
     id: number; letter: string; state: RevisionState; stateLabel: string; note: string;
     basedOnId?: number | null; createdBy: PersonRef; createdAt?: string | null; updatedAt?: string | null;
   };
-  channels: { key: string; name: string; stages: ReportChainStage[] }[];
+  channels: { key: string; name: string; stages: ReportChainStage[]; warnings?: ReportChainWarning[] }[];
   uncertainty: null | (RunHeader & { channels: ReportUncertaintyChannel[] });
   margin: null | (RunHeader & { inputs: MarginInputs; result: MarginStudyResult });
   marginInputs: MarginInputs;

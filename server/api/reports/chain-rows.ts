@@ -48,6 +48,8 @@ export function chainStages(c: ChannelDefinition): ChainStage[] {
         row('offset error', c.converter.offsetErrorHz, 'Hz'), row('gain tempco', c.converter.gainTempcoPpmPerK, 'ppm/K'),
         row('offset drift', c.converter.offsetDriftHzPerK, 'Hz/K'), row('nonlinearity', c.converter.nonlinearityPctFs, '% FS'),
         row('full scale', c.converter.fullScaleHz, 'Hz'), row('input resistance', c.converter.inputResistanceOhm, 'Ω'),
+        row('input resistance tolerance', c.converter.inputResistanceOhm === undefined ? undefined : c.converter.inputResistanceTolerancePct ?? 0, '%'),
+        row('input resistance tempco', c.converter.inputResistanceOhm === undefined ? undefined : c.converter.inputResistanceTempcoPpmPerK ?? 0, 'ppm/K'),
         row('input bias current', c.converter.inputBiasCurrentA, 'A'),
       ),
     },

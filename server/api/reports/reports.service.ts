@@ -11,6 +11,7 @@ import { REVIEW_ACTIONS } from '../reviews/reviews.service.js';
 import type { MarginStudyData } from '../margin/margin-study.js';
 import { HIGH_VOLTAGE_CAUTION } from './caution.js';
 import { chainStages } from './chain-rows.js';
+import { chainWarningsOf } from './chain-warnings.js';
 import { isoTime, isoTimeOrNull } from '../../common/iso-time.js';
 import type { ReportSignOff, ReportUncertaintyChannel, RevisionReport, RunHeader } from '../../../shared/schemas/report-views.js';
 
@@ -38,6 +39,7 @@ function uncertaintySection(run: AnalysisRun, current: boolean): RunHeader & { c
       const variance = worst.gum.combinedStandardUncertainty ** 2;
       return {
         key, name, trials: study.trials, coverageProbability: study.coverageProbability, gumAdequate: study.gumAdequate,
+        counterOverflowV: study.points.filter((p) => p.counterOverflow).map((p) => p.voltageV),
         points: study.points.map((p) => ({
           voltageV: p.voltageV,
           monteCarloMeanV: p.monteCarlo.mean,
@@ -86,7 +88,7 @@ export async function buildReport(dataSource: DataSource, revisionId: number, no
       basedOnId: revision.basedOnId, createdBy: { id: revision.createdBy.id, displayName: revision.createdBy.displayName },
       createdAt: isoTimeOrNull(revision.createdAt), updatedAt: isoTimeOrNull(revision.updatedAt),
     },
-    channels: revision.channels.map((c) => ({ key: c.key, name: c.definition.name, stages: chainStages(c.definition) })),
+    channels: revision.channels.map((c) => ({ key: c.key, name: c.definition.name, stages: chainStages(c.definition), warnings: chainWarningsOf(c.definition) })),
     uncertainty: uncertaintyRun ? uncertaintySection(uncertaintyRun, uncertaintyCurrent) : null,
     margin: marginRun
       ? { ...runHeader(marginRun, marginCurrent), inputs: (marginRun.inputs as unknown as MarginStudyData).inputs, result: marginRun.result as unknown as MarginStudyResult }
