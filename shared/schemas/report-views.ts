@@ -23,6 +23,8 @@ export interface ReportBudgetRow {
   sensitivity: number;
   contributionV: number;
   sharePct: number;
+  /** 2 for a second-order cross term of two inputs (JCGM 100 5.1.2 Note), 1 otherwise. */
+  order: 1 | 2;
 }
 
 /** A design warning of one channel as the editor shows it; 'info' when a check could not be made. */

@@ -108,9 +108,12 @@ function uncertaintySection(pdf: PdfWriter, report: ReviewReport): void {
     pdf.paragraph(`Uncertainty budget at ${formatEng(c.budget.voltageV, 'V')}: u = ${formatEng(c.budget.combinedStandardUncertaintyV, 'V')}, U = ±${formatEng(c.budget.expandedUncertaintyV, 'V')} (k = ${c.budget.coverageFactor.toFixed(2)}); GUM ${c.gumAdequate ? 'validated' : 'not validated'} by the Monte Carlo.`, { size: 8.5 });
     pdf.table(
       [{ header: 'Input', width: 160 }, { header: 'Distribution', width: 70 }, { header: 'u(x)', width: 80, align: 'right' }, { header: 'c', width: 70, align: 'right' }, { header: 'u(y)', width: 65, align: 'right' }, { header: 'Share', width: pdf.width - 445, align: 'right' }],
-      c.budget.rows.map((b) => [`${b.label} (${b.where})`, b.distribution, `${b.standardUncertainty.toPrecision(3)} ${b.unit}`, b.sensitivity.toPrecision(3),
+      c.budget.rows.map((b) => [b.order === 2 ? `${b.label} (second order)` : `${b.label} (${b.where})`, b.distribution, `${b.standardUncertainty.toPrecision(3)} ${b.unit}`, b.sensitivity.toPrecision(3),
         formatEng(b.contributionV, 'V'), `${b.sharePct.toFixed(1)} %`]),
     );
+    if (c.budget.rows.some((b) => b.order === 2)) {
+      pdf.paragraph('Second-order rows are cross terms of two inputs (JCGM 100 5.1.2, note on nonlinearity), such as a temperature swing acting through a TCR; their u(x) is the product of the two inputs\' and they count in u.', { size: 8, colour: COLOURS.muted });
+    }
   }
 }
 

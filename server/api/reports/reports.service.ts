@@ -56,6 +56,8 @@ function uncertaintySection(run: AnalysisRun, current: boolean): RunHeader & { c
             label: r.label, where: r.where, unit: r.unit, distribution: r.distribution, halfWidth: r.halfWidth,
             standardUncertainty: r.standardUncertainty, sensitivity: r.sensitivity, contributionV: r.contribution,
             sharePct: variance > 0 ? (100 * r.contribution ** 2) / variance : 0,
+            // Studies stored before the budget had second-order rows carry no order.
+            order: r.order ?? 1,
           })),
         },
       };
