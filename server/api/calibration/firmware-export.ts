@@ -48,7 +48,7 @@ export function cHeader(ctx: ExportContext, fit: FitView): string {
  * Reading: volts = sum over k of ${lower}_coeff[k] * f^k, with f the measured frequency in Hz (${lower}_volts_float).
  * ${fit.inverse.exact ? 'Exact inverse of the fitted straight line.' : `Least-squares inverse of the degree ${fit.settings.degree} fit; its largest departure is ${fit.inverse.maxInverseErrorV.toExponential(2)} V.`}
  * Fixed point (${lower}_volts_fixed, integers only): the input is f x 2^${fixed.frequencyFracBits} as a uint32_t; u = (input - ${p}_MID_FX) / ${p}_HALF_FX
- * in Q${fixed.uFracBits}, within -1..1 over the calibrated range; volts = sum over k of ${lower}_u_q[k] / 2^${lower}_u_shift[k] * u^k by Horner's
+ * in Q${fixed.uFracBits}, within -1..1 over the calibrated range (inputs beyond half the span outside it are clamped); volts = sum over k of ${lower}_u_q[k] / 2^${lower}_u_shift[k] * u^k by Horner's
  * rule in int64, each coefficient with 30 significant bits, the result in units of 2^-${fixed.voltsFracBits} V.
  * Largest fixed-point departure from the float form (the sum above in exact arithmetic with the fitted coefficients) over the
  * calibrated range: at most ${boundText(fixed.maxDepartureV)} V (a bound from the rounding steps); the largest at ${fixed.gridPoints} inputs computed exactly is ${fixed.largestFoundV.toPrecision(2)} V.
