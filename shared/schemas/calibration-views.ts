@@ -155,6 +155,8 @@ export interface SessionDetail extends SessionSummary {
 export interface CalibrationOverview {
   channelKey: string;
   channelName: string;
+  /** The decision rule each board's decision follows. */
+  rule: string;
   population: DesignPopulation;
   boards: { boardId: number; serialNumber: string; sessionId: number | null; gainError: number | null; offsetErrorV: number | null; within: boolean | null;
     /** Guarded acceptance against the design's interval; null without a completed session. */

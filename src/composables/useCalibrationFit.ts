@@ -63,7 +63,10 @@ export function useCalibrationFit(session: Ref<SessionDetail | null>) {
       rSquared: f.rSquared >= 0.999999 ? formatPlain(f.rSquared, '', 9) : formatPlain(f.rSquared, '', 6),
       pointsUsed: f.pointsUsed,
       degreesOfFreedom: f.degreesOfFreedom,
-      settings: `${['', 'Straight line', 'Quadratic', 'Cubic'][f.settings.degree]}, ${f.settings.intercept ? 'with offset' : 'through the origin'}, ${f.settings.weighted ? 'weighted by 1/u²' : 'unweighted'}`,
+      settings: `${['', 'Straight line', 'Quadratic', 'Cubic'][f.settings.degree]}, ${f.settings.intercept ? 'with offset' : 'through the origin'}, ${
+        !f.settings.weighted ? 'unweighted' : f.weighting === 'absolute' ? 'weighted by 1/u² with u known' : 'weighted by 1/u², scaled by the scatter'}`,
+      /** √(χ²/ν): near 1 when the stated u match the scatter. */
+      birgeRatio: f.birgeRatio === null ? null : formatPlain(f.birgeRatio, '', 3),
     };
   });
 

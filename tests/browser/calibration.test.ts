@@ -83,7 +83,8 @@ describe('a tester in the browser', () => {
     expect(await coefficients.innerText()).toMatch(/Offset b₀\s+\d/);
     expect(await page.getByRole('img', { name: /^Residual plot/ }).isVisible()).toBe(true);
     expect(await page.getByRole('img', { name: /^Data plot/ }).isVisible()).toBe(true);
-    expect(await page.getByRole('status').filter({ hasText: "Within the design's spread" }).isVisible()).toBe(true);
+    expect(await page.getByRole('status').filter({ hasText: "Accepted against the design's spread" }).isVisible()).toBe(true);
+    expect(await page.getByText(/Decision rule\. Guarded acceptance \(JCGM 106:2012 §8\)/).isVisible()).toBe(true);
     const points = page.getByRole('table', { name: 'Calibration points' });
     await expect.poll(() => points.locator('tbody tr').nth(4).innerText()).toContain('Suspect');
     await rig.screenshot('calibration-session');

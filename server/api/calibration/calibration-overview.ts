@@ -3,12 +3,12 @@ import { NotFoundError } from '../../common/errors.js';
 import { Board } from '../../entities/Board.js';
 import { Channel } from '../../entities/Channel.js';
 import { getSession } from './sessions.service.js';
-import { compareBoard, designPopulation } from './design-spread.js';
+import { BOARD_ACCEPTANCE_RULE, compareBoard, designPopulation } from './design-spread.js';
 import { sessionsOfBoards } from '../boards/boards.service.js';
 
 /**
  * Every board of a revision against the design's spread for one channel: the latest completed session's
- * gain and offset errors per board, and the design population at the reference temperature.
+ * gain and offset errors per board with its guarded-acceptance decision, and the design population at the reference temperature.
  */
 export async function calibrationOverview(dataSource: DataSource, revisionId: number, channelKey: string) {
   const channel = await dataSource.getRepository(Channel).findOneBy({ revisionId, key: channelKey });
@@ -26,5 +26,5 @@ export async function calibrationOverview(dataSource: DataSource, revisionId: nu
     const c = compareBoard(channel.definition, session.ambientC, session.points, session.reference);
     rows.push({ boardId: board.id, serialNumber: board.serialNumber, sessionId: session.id, gainError: c.board.gainError, offsetErrorV: c.board.offsetErrorV, within: c.within, decision: c.acceptance.decision });
   }
-  return { channelKey, channelName: channel.definition.name, population: designPopulation(channel.definition, channel.definition.environment.referenceC), boards: rows };
+  return { channelKey, channelName: channel.definition.name, rule: BOARD_ACCEPTANCE_RULE, population: designPopulation(channel.definition, channel.definition.environment.referenceC), boards: rows };
 }

@@ -43,8 +43,11 @@ export function designPopulation(channel: ChannelDefinition, ambientC: number): 
   return population;
 }
 
-/** Coverage factor of the board's own gain and offset uncertainty beside the design interval. */
+/** Coverage factor of the board's own gain and offset uncertainty beside the design interval, and of the guard band. */
 const BOARD_K = 2;
+
+/** The decision rule of board versus design, as the session, the overview and the review state it. */
+export const BOARD_ACCEPTANCE_RULE = guardedAcceptanceRule(BOARD_K);
 
 /**
  * Where a board's own calibration falls against its design's population. The board's straight-line fit
@@ -80,7 +83,7 @@ export function compareBoard(
   const overall = combinedDecision([gain, offset]);
   return {
     population, board, gainWithin, offsetWithin, within: gainWithin && offsetWithin, undecided: overall.decision === 'undecided',
-    acceptance: { rule: guardedAcceptanceRule(BOARD_K), decision: overall.decision, gain, offset, nonConformanceAtMost: overall.nonConformanceAtMost },
+    acceptance: { rule: BOARD_ACCEPTANCE_RULE, decision: overall.decision, gain, offset, nonConformanceAtMost: overall.nonConformanceAtMost },
     referenceShare: u.reference,
     likelyCauses: likelyCauses(board, population, gainWithin, offsetWithin),
   };
