@@ -47,12 +47,18 @@ export function useChannelReadouts(channel: Ref<ChannelDefinition>) {
     return warnings.value.filter((warning) => stageOf(warning.where) === stage);
   }
 
-  /** Whether the resistor at `where` (`divider.top[2]`, `divider.bottom`) has a warning. */
+  /** Whether the resistor at `where` (`divider.top[2]`, `divider.bottom`) has a warning (not a note). */
   function resistorWarned(where: string): boolean {
-    return warnings.value.some((warning) => warning.where === where);
+    return warnings.value.some((warning) => warning.where === where && warning.level !== 'info');
   }
 
-  return { readouts, worstCase, problem, warnings, warningsFor, resistorWarned };
+  /** A check that could not be made for the resistor at `where` (a rating not entered), shown on its row. */
+  function resistorNote(where: string): string | undefined {
+    const note = warnings.value.find((warning) => warning.where === where && warning.level === 'info');
+    return note && capitalise(note.message);
+  }
+
+  return { readouts, worstCase, problem, warnings, warningsFor, resistorWarned, resistorNote };
 }
 
 export type ChannelReadouts = ReturnType<typeof useChannelReadouts>;
