@@ -1,4 +1,5 @@
 import { TRIALS_PER_BLOCK } from '../random/streams.js';
+import { minimumBatchTrials } from './coverage.js';
 import type { TrialChunk, TrialKernel } from './kernel.js';
 import { summariseChunks, type MonteCarloResult } from './monte-carlo.js';
 import { mergeChunks, outputValues, simulateBlocks } from './simulate.js';
@@ -64,7 +65,7 @@ export class AdaptiveMonteCarlo {
     this.ndig = options.ndig ?? 2;
     if (!(this.coverageProbability > 0 && this.coverageProbability < 1)) throw new Error('coverage probability must be in (0, 1)');
     if (!Number.isInteger(this.ndig) || this.ndig < 1) throw new Error('significant digits must be an integer ≥ 1');
-    const batchTrials = Math.max(Math.ceil(100 / (1 - this.coverageProbability)), 10_000);
+    const batchTrials = Math.max(minimumBatchTrials(this.coverageProbability), 10_000);
     this.batchBlocks = Math.ceil(batchTrials / TRIALS_PER_BLOCK);
   }
 

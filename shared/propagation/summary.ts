@@ -1,4 +1,4 @@
-import { shortestInterval, symmetricInterval, type CoverageInterval } from './coverage.js';
+import { intervalEndUncertainty, shortestInterval, symmetricInterval, type CoverageInterval, type SampledInterval } from './coverage.js';
 import { histogramOf, type Histogram } from './histogram.js';
 
 /** What a Monte Carlo run says about one output (unit of the output). */
@@ -6,7 +6,8 @@ export interface OutputSummary {
   trials: number;
   mean: number;
   standardDeviation: number;
-  symmetricInterval: CoverageInterval;
+  /** With the standard uncertainty of each end from the sample (JCGM 101 §8 compares within it). */
+  symmetricInterval: SampledInterval;
   shortestInterval: CoverageInterval;
   /** Smallest and largest trial value, so a bound can be checked against every trial. */
   minimum: number;
@@ -45,7 +46,7 @@ export function summariseValues(values: Float64Array, coverageProbability: numbe
     trials: count,
     mean,
     standardDeviation: Math.sqrt(squares / (count - 1)),
-    symmetricInterval: symmetricInterval(sorted, coverageProbability),
+    symmetricInterval: { ...symmetricInterval(sorted, coverageProbability), ...intervalEndUncertainty(sorted, coverageProbability) },
     shortestInterval: shortestInterval(sorted, coverageProbability),
     minimum: sorted[0],
     maximum: sorted[count - 1],
