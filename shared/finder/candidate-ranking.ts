@@ -1,16 +1,17 @@
 /**
- * Ranking of divider candidates: |ratio error| (to 1e-12), then parts count,
- * then total dissipation, then total resistance — and a bounded best-K list.
+ * Ranking of divider candidates: worst-case error at the highest input (|ratio error| plus the
+ * bias offset, to 1e-12), then parts count, then total dissipation, then total resistance — and a
+ * bounded best-K list.
  */
 import type { DividerCandidate } from './finder-types.js';
 
 /**
- * |ratio error| in units of 1e-12, rounded, so that equal ratios from different strings tie.
- * @param ratioErrorFraction (ratio − target)/target
- * @example ratioErrorKey(-2.5e-12) // 3
+ * An error fraction in units of 1e-12, rounded, so that equal ratios from different strings tie.
+ * @param errorFraction worst-case error (or ratio error) as a fraction of the target
+ * @example errorKey(-2.5e-12) // 3
  */
-export function ratioErrorKey(ratioErrorFraction: number): number {
-  return Math.round(Math.abs(ratioErrorFraction) * 1e12);
+export function errorKey(errorFraction: number): number {
+  return Math.round(Math.abs(errorFraction) * 1e12);
 }
 
 /**
@@ -19,7 +20,7 @@ export function ratioErrorKey(ratioErrorFraction: number): number {
  */
 export function compareCandidates(a: DividerCandidate, b: DividerCandidate): number {
   return (
-    ratioErrorKey(a.ratioErrorFraction) - ratioErrorKey(b.ratioErrorFraction) ||
+    errorKey(a.worstCaseErrorFraction) - errorKey(b.worstCaseErrorFraction) ||
     a.partCount - b.partCount ||
     a.totalWatts - b.totalWatts ||
     a.totalOhms - b.totalOhms ||
@@ -35,9 +36,14 @@ export class CandidateShortlist {
 
   constructor(private readonly capacity: number) {}
 
-  /** Whether a candidate with this ratio error could still enter the list. */
-  admits(ratioErrorFraction: number): boolean {
-    return ratioErrorKey(ratioErrorFraction) <= this.worstKey;
+  /** Whether a candidate with this worst-case error could still enter the list. */
+  admits(errorFraction: number): boolean {
+    return errorKey(errorFraction) <= this.worstKey;
+  }
+
+  /** The largest error fraction still admitted (Infinity until the list is full). */
+  bound(): number {
+    return this.worstKey === Infinity ? Infinity : (this.worstKey + 0.5) / 1e12;
   }
 
   add(candidate: DividerCandidate): void {
@@ -54,6 +60,6 @@ export class CandidateShortlist {
   private trim(): void {
     this.kept.sort(compareCandidates);
     this.kept.length = Math.min(this.kept.length, this.capacity);
-    if (this.kept.length === this.capacity) this.worstKey = ratioErrorKey(this.kept[this.capacity - 1].ratioErrorFraction);
+    if (this.kept.length === this.capacity) this.worstKey = errorKey(this.kept[this.capacity - 1].worstCaseErrorFraction);
   }
 }

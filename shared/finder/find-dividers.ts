@@ -1,82 +1,104 @@
 /**
- * The divider finder: for each top string (n equal values, optionally mixed
- * values), the bottom values nearest the ideal R_b = r·R_top/(1 − r) found by
- * binary search, kept when every limit holds, ranked by ratio error, parts, power.
+ * The divider finder: top strings of equal values, and (when asked) every mixed top string the
+ * search budget allows, each with the bottom values that bring the ratio the converter sees
+ * closest to the target; ranked by worst-case error at the highest input, then parts, then power.
+ * Whatever kind of string is not searched is named in the result.
  */
 import { CandidateShortlist } from './candidate-ranking.js';
-import { evaluateDivider } from './divider-evaluation.js';
 import { planSearch } from './finder-request.js';
-import type { SearchPlan, SearchValue } from './finder-request.js';
-import type { DividerCandidate, FinderRequest } from './finder-types.js';
-import { MIXED_STRING_BUDGET, forEachMixedString, multisetCount } from './top-strings.js';
+import type { SearchPlan } from './finder-request.js';
+import type { FinderRequest, FinderResult } from './finder-types.js';
+import { limitWindow, mixedWork, searchEqualStrings, searchMixedStrings, searchState, usableInTop, MAX_REJECTIONS_IN_A_ROW } from './string-search.js';
+import { halfStrings, multisetCount, type HalfStrings } from './top-strings.js';
 
-/** Bottom values tried on each side of the ideal one. */
-const NEIGHBOURS_EACH_SIDE = 2;
+/** Most multisets held in one half table. */
+export const MAX_HALF_STRINGS = 1_000_000;
+/** Most meet-in-the-middle steps (A-sums visited plus B-sums looked up) in one search. */
+export const MIXED_WORK_BUDGET = 60_000_000;
+/** How many of the nearest candidates are shown when none is within the asked tolerance. */
+export const CLOSEST_SHOWN = 5;
 
-function firstAtOrAbove(values: readonly SearchValue[], ohms: number): number {
-  let low = 0;
-  let high = values.length;
-  while (low < high) {
-    const middle = (low + high) >>> 1;
-    if (values[middle].ohms < ohms) low = middle + 1;
-    else high = middle;
-  }
-  return low;
+/** A count in words a person reads at a glance: 3400, 2.1 million, 1.4 billion. */
+function aboutCount(count: number): string {
+  if (count >= 1e9) return `${Number((count / 1e9).toPrecision(2))} billion`;
+  if (count >= 1e6) return `${Number((count / 1e6).toPrecision(2))} million`;
+  return String(Math.round(count));
 }
 
-function tryTopString(plan: SearchPlan, top: SearchValue[], used: Map<SearchValue, number>, shortlist: CandidateShortlist): void {
-  const topOhms = top.reduce((sum, part) => sum + part.ohms, 0);
-  const idealBottom = (plan.targetRatio * topOhms) / (1 - plan.targetRatio);
-  const split = firstAtOrAbove(plan.values, idealBottom);
-  const first = Math.max(0, split - NEIGHBOURS_EACH_SIDE);
-  const last = Math.min(plan.values.length - 1, split + NEIGHBOURS_EACH_SIDE - 1);
-  for (let index = first; index <= last; index++) {
-    const bottom = plan.values[index];
-    if ((used.get(bottom) ?? 0) + 1 > bottom.quantity) continue;
-    const ratio = bottom.ohms / (topOhms + bottom.ohms);
-    const ratioErrorFraction = ratio / plan.targetRatio - 1;
-    if (Math.abs(ratioErrorFraction) > plan.maxRatioErrorFraction || !shortlist.admits(ratioErrorFraction)) continue;
-    const candidate = evaluateDivider(plan, top, topOhms, bottom);
-    if (candidate !== null) shortlist.add(candidate);
-  }
+function notSearchedMixed(length: number, why: string): string {
+  return `Mixed top strings of ${length} resistors were not searched (${why}); strings of ${length} equal values were. ` +
+    'Narrow the resistor range, ask for a tolerance or allow fewer top resistors to include them.';
 }
 
-function usage(top: readonly SearchValue[]): Map<SearchValue, number> | null {
-  const used = new Map<SearchValue, number>();
-  for (const part of top) {
-    const count = (used.get(part) ?? 0) + 1;
-    if (count > part.quantity) return null;
-    used.set(part, count);
+function runSearch(plan: SearchPlan): { candidates: FinderResult['candidates']; notSearched: string[] } {
+  const shortlist = new CandidateShortlist(plan.maxCandidates);
+  const state = searchState(plan, shortlist);
+  const notSearched: string[] = [];
+  // Equal strings first: cheap, and they tighten the bound the mixed search prunes with.
+  for (let length = plan.minTopCount; length <= plan.maxTopCount; length++) searchEqualStrings(state, length);
+  if (!plan.mixedTopStrings && plan.maxTopCount >= 2) {
+    notSearched.push('Only top strings of equal values were searched; strings of different values were not asked for.');
   }
-  return used;
+  if (plan.mixedTopStrings) {
+    // Only values that fit in a top string at all, and none beyond the largest top the limits allow.
+    const highestTop = limitWindow(plan, state.loaded[0])[1];
+    const usable = plan.values.flatMap((part, index) => (part.ohms <= highestTop && usableInTop(plan, part) ? [index] : []));
+    const topIndex = Int32Array.from(usable);
+    const ohms = usable.map((index) => plan.values[index].ohms);
+    const quantity = usable.map((index) => plan.values[index].quantity);
+    const tables = new Map<number, HalfStrings | null>();
+    const table = (size: number): HalfStrings | null => {
+      if (!tables.has(size)) tables.set(size, halfStrings(ohms, quantity, size, MAX_HALF_STRINGS));
+      return tables.get(size) ?? null;
+    };
+    let budget = MIXED_WORK_BUDGET;
+    for (let length = Math.max(2, plan.minTopCount); length <= plan.maxTopCount; length++) {
+      const halfA = table(Math.floor(length / 2));
+      const halfB = halfA && table(length - Math.floor(length / 2));
+      if (!halfA || !halfB) {
+        notSearched.push(notSearchedMixed(length, `about ${aboutCount(multisetCount(ohms.length, length))} combinations of values`));
+        continue;
+      }
+      const work = mixedWork(state, halfA, halfB, length);
+      if (work > budget) {
+        notSearched.push(notSearchedMixed(length, `about ${aboutCount(work)} search steps, more than the ${aboutCount(budget)} left for this search`));
+        continue;
+      }
+      budget -= work;
+      searchMixedStrings(state, topIndex, halfA, halfB, length);
+    }
+  }
+  if (state.cutWalks > 0) {
+    notSearched.push(`Limits or stock ruled out more than ${MAX_REJECTIONS_IN_A_ROW} combinations in a row near the target ` +
+      `(${state.cutWalks} ${state.cutWalks === 1 ? 'time' : 'times'}); combinations beyond those were not checked.`);
+  }
+  const within = shortlist.best().filter((candidate) => candidate.worstCaseErrorFraction <= plan.maxRatioErrorFraction);
+  return { candidates: within, notSearched };
 }
 
 /**
- * Ranked divider candidates for a measurement channel: top string of minTopCount…maxTopCount
- * resistors and one bottom resistor from an E-series (IEC 60063) or a stock list, target ratio
- * fullScaleVolts/maxInputVolts (or targetRatio), every figure evaluated at maxInputVolts.
- * Mixed top strings are tried only for lengths whose multiset count ≤ MIXED_STRING_BUDGET.
+ * Ranked divider candidates for a measurement channel: a top string of minTopCount…maxTopCount
+ * resistors and one bottom resistor from an E-series (IEC 60063) or a stock list, aiming at the
+ * target ratio fullScaleVolts/maxInputVolts (or targetRatio) as the converter sees it: the bottom
+ * resistor in parallel with inputResistanceOhms, and the bias current's offset ±I_b·(R_t‖R_b')
+ * counted at its worst sign at maxInputVolts. Equal-value strings are always searched exactly;
+ * mixed strings (when asked) exactly for every length within the search budget, and the result
+ * names every length that was not.
  * @param request volts in V, ohms in Ω, watts in W, amps in A (see FinderRequest)
- * @returns up to maxCandidates candidates, best first; empty when nothing meets the limits
+ * @returns candidates within the tolerance, best first (at most maxCandidates); when none is, the
+ *   closest found outside it; and what was not searched
  * @throws Error naming the first bad field of the request
- * @example findDividers({ maxInputVolts: 462, fullScaleVolts: 1.85, series: 'E96', minTopCount: 4, maxTopCount: 4 })
+ * @example findDividers({ maxInputVolts: 462, fullScaleVolts: 1.85, series: 'E96', minTopCount: 4, maxTopCount: 4 }).candidates[0]
  */
-export function findDividers(request: FinderRequest): DividerCandidate[] {
+export function findDividers(request: FinderRequest): FinderResult {
   const plan = planSearch(request);
-  const shortlist = new CandidateShortlist(plan.maxCandidates);
-  const { values } = plan;
-  for (let length = plan.minTopCount; length <= plan.maxTopCount; length++) {
-    for (const part of values) {
-      if (part.quantity < length) continue;
-      const top = new Array<SearchValue>(length).fill(part);
-      tryTopString(plan, top, new Map([[part, length]]), shortlist);
-    }
-    if (!plan.mixedTopStrings || length < 2 || multisetCount(values.length, length) > MIXED_STRING_BUDGET) continue;
-    forEachMixedString(values.length, length, (indices) => {
-      const top = indices.map((index) => values[index]);
-      const used = usage(top);
-      if (used !== null) tryTopString(plan, top, used, shortlist);
-    });
-  }
-  return shortlist.best();
+  const found = runSearch(plan);
+  const asked = {
+    targetRatio: plan.targetRatio,
+    maxInputVolts: plan.maxInputVolts,
+    toleranceFraction: plan.maxRatioErrorFraction === Infinity ? null : plan.maxRatioErrorFraction,
+  };
+  if (found.candidates.length > 0 || asked.toleranceFraction === null) return { ...asked, candidates: found.candidates, closest: [], notSearched: found.notSearched };
+  const nearest = runSearch({ ...plan, maxRatioErrorFraction: Infinity, maxCandidates: Math.min(CLOSEST_SHOWN, plan.maxCandidates) });
+  return { ...asked, candidates: [], closest: nearest.candidates, notSearched: nearest.notSearched };
 }

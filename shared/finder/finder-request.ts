@@ -3,6 +3,7 @@
  * target ratio, sorted candidate values with stock and ratings.
  */
 import { eSeriesValuesInRange, isESeriesName } from '../eseries/e-series-values.js';
+import { MAX_TOP_RESISTORS } from '../schemas/chain.js';
 import type { FinderLimits, FinderRequest } from './finder-types.js';
 
 /** A value the search may use, with its quantity (Infinity for a series) and ratings. */
@@ -22,6 +23,10 @@ export interface SearchPlan {
   maxTopCount: number;
   mixedTopStrings: boolean;
   limits: Required<Omit<FinderLimits, 'minOhms' | 'maxOhms'>>;
+  /** converter input resistance (Ω), Infinity when unloaded */
+  inputResistanceOhms: number;
+  /** bound of the converter input bias current (A), ≥ 0 */
+  inputBiasAmps: number;
   maxRatioErrorFraction: number;
   maxCandidates: number;
 }
@@ -29,6 +34,12 @@ export interface SearchPlan {
 function positive(value: number | undefined, name: string, fallback: number): number {
   if (value === undefined) return fallback;
   if (!(value > 0) || Number.isNaN(value)) throw new Error(`${name} must be > 0`);
+  return value;
+}
+
+function nonNegative(value: number | undefined, name: string): number {
+  if (value === undefined) return 0;
+  if (!(value >= 0) || !Number.isFinite(value)) throw new Error(`${name} must be a finite number ≥ 0`);
   return value;
 }
 
@@ -94,8 +105,8 @@ export function planSearch(request: FinderRequest): SearchPlan {
   if (!Number.isFinite(maxInputVolts)) throw new Error('maxInputVolts must be > 0');
   const targetRatio = targetRatioOf(request);
   const limits = request.limits ?? {};
-  const minTopCount = countBetween(request.minTopCount, 'minTopCount', 1, 1, 8);
-  const maxTopCount = countBetween(request.maxTopCount, 'maxTopCount', Math.max(4, minTopCount), 1, 8);
+  const minTopCount = countBetween(request.minTopCount, 'minTopCount', 1, 1, MAX_TOP_RESISTORS);
+  const maxTopCount = countBetween(request.maxTopCount, 'maxTopCount', Math.max(4, minTopCount), 1, MAX_TOP_RESISTORS);
   if (maxTopCount < minTopCount) throw new Error('maxTopCount must be ≥ minTopCount');
   return {
     maxInputVolts,
@@ -112,6 +123,8 @@ export function planSearch(request: FinderRequest): SearchPlan {
       minTotalOhms: positive(limits.minTotalOhms, 'limits.minTotalOhms', Number.MIN_VALUE),
       maxTotalOhms: positive(limits.maxTotalOhms, 'limits.maxTotalOhms', Infinity),
     },
+    inputResistanceOhms: positive(request.inputResistanceOhms, 'inputResistanceOhms', Infinity),
+    inputBiasAmps: nonNegative(request.inputBiasAmps, 'inputBiasAmps'),
     maxRatioErrorFraction: positive(request.maxRatioErrorFraction, 'maxRatioErrorFraction', Infinity),
     maxCandidates: countBetween(request.maxCandidates, 'maxCandidates', 20, 1, 1000),
   };

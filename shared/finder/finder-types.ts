@@ -49,7 +49,11 @@ export interface FinderRequest {
   /** also try top strings of different values (default false: n equal values) */
   mixedTopStrings?: boolean;
   limits?: FinderLimits;
-  /** drop candidates whose |ratio error| exceeds this fraction */
+  /** converter input resistance (Ω), in parallel with the bottom resistor; omit for an unloaded divider */
+  inputResistanceOhms?: number;
+  /** bound of the converter's input bias current, either sign (A); default 0 */
+  inputBiasAmps?: number;
+  /** the asked tolerance: candidates whose worst-case error exceeds this fraction are not listed as meeting it */
   maxRatioErrorFraction?: number;
   /** how many candidates to return, 1…1000 (default 20) */
   maxCandidates?: number;
@@ -60,12 +64,21 @@ export interface DividerCandidate {
   /** top-string values, ascending (Ω) */
   topOhms: number[];
   bottomOhms: number;
-  /** bottom / (top + bottom) */
+  /** bottom resistor in parallel with the converter input, R_b' = R_b‖R_in (Ω) */
+  loadedBottomOhms: number;
+  /** the ratio the converter sees, R_b'/(ΣR_top + R_b'): the editor's ratio readout */
   ratio: number;
   /** (ratio − target) / target */
   ratioErrorFraction: number;
+  /** source resistance the converter sees, ΣR_top‖R_b' (Ω) */
+  theveninOhms: number;
+  /** bound of the bias current's offset at the converter input, I_b·(ΣR_top‖R_b') (V), either sign */
+  biasOffsetVolts: number;
+  /** ranking figure: |ratio error| + biasOffsetVolts/(maxInputVolts·target), the worst case at maxInputVolts */
+  worstCaseErrorFraction: number;
+  /** resistance the input sees, ΣR_top + R_b' (Ω) */
   totalOhms: number;
-  /** current through the divider (A) */
+  /** current through the top string (A) */
   bleedAmps: number;
   /** total dissipation (W) */
   totalWatts: number;
@@ -73,7 +86,23 @@ export interface DividerCandidate {
   maxVoltsPerResistor: number;
   /** highest dissipation in one resistor (W) */
   maxWattsPerResistor: number;
-  /** output voltage at maxInputVolts (V) */
+  /** output voltage at maxInputVolts without bias current (V) */
   outputVolts: number;
   partCount: number;
+}
+
+/** What a search found, and what it did not try. */
+export interface FinderResult {
+  /** target ratio the candidates are measured against */
+  targetRatio: number;
+  /** the highest input voltage every figure is evaluated at (V) */
+  maxInputVolts: number;
+  /** the asked tolerance on the worst-case error (fraction), null when none was asked */
+  toleranceFraction: number | null;
+  /** candidates within the asked tolerance (all kept ones when none was asked), best first */
+  candidates: DividerCandidate[];
+  /** when none is within the asked tolerance: the nearest ones found, outside it, best first */
+  closest: DividerCandidate[];
+  /** plain sentences naming every kind of top string the search did not try, and why */
+  notSearched: string[];
 }

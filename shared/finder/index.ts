@@ -1,6 +1,7 @@
-export { findDividers } from './find-dividers.js';
-export type { DividerCandidate, FinderLimits, FinderRequest, StockItem } from './finder-types.js';
+export { findDividers, CLOSEST_SHOWN, MAX_HALF_STRINGS, MIXED_WORK_BUDGET } from './find-dividers.js';
+export type { DividerCandidate, FinderLimits, FinderRequest, FinderResult, StockItem } from './finder-types.js';
 export { planSearch } from './finder-request.js';
 export type { SearchPlan, SearchValue } from './finder-request.js';
 export { compareCandidates } from './candidate-ranking.js';
-export { MIXED_STRING_BUDGET, multisetCount } from './top-strings.js';
+export { multisetCount } from './top-strings.js';
+export { loadedBottomOhms, worstCaseError } from './loaded-divider.js';

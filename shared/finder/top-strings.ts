@@ -1,15 +1,12 @@
 /**
- * Enumeration of top strings: n equal values, or every multiset of n values
- * (non-decreasing index tuples) when their number fits the budget.
+ * Half strings for a meet-in-the-middle search: every multiset of m values (non-decreasing index
+ * tuples, each value used at most its quantity), with its sum, sorted by sum.
  */
-
-/** Most mixed strings tried for one string length; beyond it only equal strings are searched. */
-export const MIXED_STRING_BUDGET = 1_000_000;
 
 /**
  * Number of multisets of size n from k values, C(k + n − 1, n).
  * @param valueCount k ≥ 1
- * @param stringLength n ≥ 1
+ * @param stringLength n ≥ 0
  * @example multisetCount(3, 2) // 6
  */
 export function multisetCount(valueCount: number, stringLength: number): number {
@@ -18,22 +15,126 @@ export function multisetCount(valueCount: number, stringLength: number): number 
   return Math.round(count);
 }
 
+/** Index of the low and high 32-bit words of a float64 on this machine. */
+const LOW_WORD = new Uint8Array(new Uint32Array([1]).buffer)[0] === 1 ? 0 : 1;
+
 /**
- * Calls visit(indices) for every non-decreasing tuple of n indices into k values whose
- * entries are not all equal; `indices` is reused between calls (copy it to keep it).
- * @param valueCount k
- * @param stringLength n ≥ 2
- * @param visit receives the index tuple
- * @example forEachMixedString(3, 2, (t) => console.log([...t]))
+ * The stable order that sorts non-negative doubles ascending: a least-significant-digit radix sort
+ * on their bit patterns (for x ≥ 0 the IEEE 754 bit pattern orders like the number), 16 bits a pass.
+ * @param keys values ≥ 0
+ * @example sortedOrder(Float64Array.of(3, 1, 2)) // [1, 2, 0]
  */
-export function forEachMixedString(valueCount: number, stringLength: number, visit: (indices: readonly number[]) => void): void {
-  const indices = new Array<number>(stringLength).fill(0);
-  for (;;) {
-    if (indices[0] !== indices[stringLength - 1]) visit(indices);
-    let position = stringLength - 1;
-    while (position >= 0 && indices[position] === valueCount - 1) position--;
-    if (position < 0) return;
-    const next = indices[position] + 1;
-    for (let i = position; i < stringLength; i++) indices[i] = next;
+export function sortedOrder(keys: Float64Array): Uint32Array {
+  const count = keys.length;
+  const words = new Uint32Array(keys.buffer, keys.byteOffset, count * 2);
+  let order = new Uint32Array(count);
+  let next = new Uint32Array(count);
+  for (let j = 0; j < count; j++) order[j] = j;
+  const histogram = new Uint32Array(65536);
+  for (let pass = 0; pass < 4; pass++) {
+    const word = pass < 2 ? LOW_WORD : 1 - LOW_WORD;
+    const shift = (pass % 2) * 16;
+    histogram.fill(0);
+    for (let j = 0; j < count; j++) histogram[(words[order[j] * 2 + word] >>> shift) & 0xffff]++;
+    let start = 0;
+    for (let digit = 0; digit < 65536; digit++) {
+      const n = histogram[digit];
+      histogram[digit] = start;
+      start += n;
+    }
+    for (let j = 0; j < count; j++) {
+      const index = order[j];
+      next[histogram[(words[index * 2 + word] >>> shift) & 0xffff]++] = index;
+    }
+    [order, next] = [next, order];
   }
+  return order;
+}
+
+/** Multisets of `size` values sorted by sum: tuple j is tuples[j·size … j·size + size − 1]. */
+export interface HalfStrings {
+  size: number;
+  count: number;
+  /** ascending (Ω) */
+  sums: Float64Array;
+  /** value indices, non-decreasing within each tuple */
+  tuples: Int32Array;
+}
+
+/**
+ * Every multiset of `size` values whose use of each value stays within its quantity, sorted by
+ * sum (ties by tuple order of enumeration, which is deterministic).
+ * @param ohms values ascending (Ω)
+ * @param quantity how many of each value may be used (Infinity for a series)
+ * @param size m ≥ 0 (m = 0 gives the one empty multiset, sum 0)
+ * @param cap most multisets to build
+ * @returns the table, or null when there are more than `cap`
+ * @example halfStrings([1, 2], [Infinity, Infinity], 2, 100)?.sums // [2, 3, 4]
+ */
+export function halfStrings(ohms: readonly number[], quantity: readonly number[], size: number, cap: number): HalfStrings | null {
+  const room = Math.min(multisetCount(ohms.length, size), cap + 1);
+  if (room > cap && quantity.every((q) => q >= size)) return null;
+  const unsorted = new Float64Array(room);
+  const rawTuples = new Int32Array(room * size);
+  const tuple = new Int32Array(size);
+  let count = 0;
+  // Non-decreasing tuples in lexicographic order; a value repeated beyond its quantity is skipped.
+  const fits = (position: number): boolean => {
+    let used = 1;
+    for (let back = position - 1; back >= 0 && tuple[back] === tuple[position]; back--) used++;
+    return used <= quantity[tuple[position]];
+  };
+  let position = 0;
+  if (size > 0) tuple[0] = 0;
+  for (;;) {
+    if (position < size && tuple[position] < ohms.length && fits(position)) {
+      if (position === size - 1) {
+        if (count === cap) return null;
+        let sum = 0;
+        for (let i = 0; i < size; i++) sum += ohms[tuple[i]];
+        unsorted[count] = sum;
+        rawTuples.set(tuple, count * size);
+        count++;
+        tuple[position]++;
+      } else {
+        tuple[position + 1] = tuple[position];
+        position++;
+      }
+      continue;
+    }
+    if (size === 0) {
+      count = 1;
+      break;
+    }
+    if (position < size && tuple[position] < ohms.length) {
+      tuple[position]++;
+      continue;
+    }
+    if (position === 0) break;
+    position--;
+    tuple[position]++;
+  }
+  const keys = unsorted.subarray(0, count);
+  const order = sortedOrder(keys);
+  const sums = new Float64Array(count);
+  const tuples = new Int32Array(count * size);
+  for (let j = 0; j < count; j++) {
+    const from = order[j];
+    sums[j] = keys[from];
+    for (let i = 0; i < size; i++) tuples[j * size + i] = rawTuples[from * size + i];
+  }
+  return { size, count, sums, tuples };
+}
+
+/**
+ * Index of the first sum ≥ `ohms` (count when none).
+ * @example firstSumAtOrAbove(table, 1e6)
+ */
+export function firstSumAtOrAbove(sums: Float64Array | readonly number[], ohms: number, low = 0, high = sums.length): number {
+  while (low < high) {
+    const middle = (low + high) >>> 1;
+    if (sums[middle] < ohms) low = middle + 1;
+    else high = middle;
+  }
+  return low;
 }

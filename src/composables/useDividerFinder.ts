@@ -1,5 +1,5 @@
 import { computed, reactive, ref } from 'vue';
-import { findDividers, type DividerCandidate, type FinderRequest } from '@shared/finder';
+import { findDividers, type DividerCandidate, type FinderRequest, type FinderResult } from '@shared/finder';
 import type { ESeriesName } from '@shared/eseries';
 import type { ChannelDefinition, ResistorDefinition } from '@shared/schemas/chain';
 import type { StockPart } from '@/services/stock';
@@ -16,6 +16,10 @@ export interface FinderForm {
   minTop: number | undefined;
   maxTop: number | undefined;
   mixed: boolean;
+  /** the asked tolerance on the worst-case error at the highest input (%) */
+  tolerancePct: number | undefined;
+  minResistorOhm: number | undefined;
+  maxResistorOhm: number | undefined;
   maxVoltsPerResistor: number | undefined;
   maxWattsPerResistor: number | undefined;
   maxBleedA: number | undefined;
@@ -43,6 +47,9 @@ function initialForm(channel: ChannelDefinition): FinderForm {
     minTop: divider.top.length,
     maxTop: divider.top.length,
     mixed: false,
+    tolerancePct: 1,
+    minResistorOhm: undefined,
+    maxResistorOhm: undefined,
     maxVoltsPerResistor: derate(lowest(divider.top.map((r) => r.ratedVoltageV))),
     maxWattsPerResistor: derate(lowest(divider.top.map((r) => r.ratedPowerW))),
     maxBleedA: undefined,
@@ -55,7 +62,9 @@ function initialForm(channel: ChannelDefinition): FinderForm {
 export function useDividerFinder(channel: () => ChannelDefinition) {
   const stockStore = useStockStore();
   const form = reactive<FinderForm>(initialForm(channel()));
-  const candidates = ref<DividerCandidate[] | null>(null);
+  const result = ref<FinderResult | null>(null);
+  /** Where the shown result's values came from (the form may change after the search). */
+  const searched = ref<{ source: FinderForm['source']; series: ESeriesName }>({ source: form.source, series: form.series });
   const problem = ref<string | null>(null);
   const searching = ref(false);
   const stock = ref<StockPart[]>([]);
@@ -65,10 +74,18 @@ export function useDividerFinder(channel: () => ChannelDefinition) {
     return map;
   });
 
+  /** The converter the finder's ratios are computed for: the channel's, as the editor's readouts use it. */
+  const converterLoad = computed(() => ({
+    inputResistanceOhms: channel().converter.inputResistanceOhm,
+    inputBiasAmps: channel().converter.inputBiasCurrentA,
+  }));
+
   function request(): FinderRequest {
     if (form.maxInputV === undefined) throw new Error('give the highest input voltage');
     const base: FinderRequest = {
       maxInputVolts: form.maxInputV,
+      ...converterLoad.value,
+      maxRatioErrorFraction: form.tolerancePct === undefined ? undefined : form.tolerancePct / 100,
       minTopCount: form.minTop,
       maxTopCount: form.maxTop,
       mixedTopStrings: form.mixed,
@@ -79,6 +96,8 @@ export function useDividerFinder(channel: () => ChannelDefinition) {
         maxBleedAmps: form.maxBleedA,
         minTotalOhms: form.minTotalOhm,
         maxTotalOhms: form.maxTotalOhm,
+        minOhms: form.minResistorOhm,
+        maxOhms: form.maxResistorOhm,
       },
     };
     if (form.target === 'ratio') base.targetRatio = form.targetRatio;
@@ -99,9 +118,10 @@ export function useDividerFinder(channel: () => ChannelDefinition) {
       if (form.source === 'stock') stock.value = await stockStore.loadAll();
       // Let the "searching" state paint before the (synchronous) search runs.
       await new Promise((resolve) => setTimeout(resolve, 0));
-      candidates.value = findDividers(request());
+      result.value = findDividers(request());
+      searched.value = { source: form.source, series: form.series };
     } catch (error) {
-      candidates.value = null;
+      result.value = null;
       problem.value = capitalise((error as Error).message);
     } finally {
       searching.value = false;
@@ -126,11 +146,11 @@ export function useDividerFinder(channel: () => ChannelDefinition) {
   /** Fills the channel's divider with a candidate, in place. */
   function apply(candidate: DividerCandidate): void {
     const divider = channel().divider;
-    const fromStock = form.source === 'stock';
+    const fromStock = searched.value.source === 'stock';
     const topTemplate = divider.top[0];
     divider.top = candidate.topOhms.map((ohms) => resistorFor(ohms, topTemplate, fromStock));
     divider.bottom = resistorFor(candidate.bottomOhms, divider.bottom, fromStock);
   }
 
-  return { form, candidates, problem, searching, onHand, search, apply };
+  return { form, result, searched, converterLoad, problem, searching, onHand, search, apply };
 }

@@ -68,18 +68,20 @@ async function benchPrecharge(): Promise<void> {
 
 async function benchFinder(): Promise<void> {
   try {
-    const finder = (await import('../../shared/finder/index.js')) as { findDividers?: (request: object) => unknown[] };
+    const finder = (await import('../../shared/finder/index.js')) as { findDividers?: (request: object) => { candidates: unknown[]; notSearched: string[] } };
     if (typeof finder.findDividers !== 'function') throw new Error('findDividers is not exported');
     for (const request of [
       { maxInputVolts: 462, fullScaleVolts: 1.85, series: 'E192', minTopCount: 1, maxTopCount: 4 },
       { maxInputVolts: 462, fullScaleVolts: 1.85, series: 'E192', minTopCount: 1, maxTopCount: 4, mixedTopStrings: true },
       { maxInputVolts: 462, fullScaleVolts: 1.85, series: 'E96', minTopCount: 4, maxTopCount: 4 },
       { maxInputVolts: 462, fullScaleVolts: 1.85, series: 'E24', minTopCount: 1, maxTopCount: 8, mixedTopStrings: true },
+      { maxInputVolts: 462, targetRatio: 0.016, series: 'E96', minTopCount: 3, maxTopCount: 3, mixedTopStrings: true, inputResistanceOhms: 10e6, inputBiasAmps: 1e-9 },
     ]) {
       finder.findDividers(request);
       const start = performance.now();
       const found = finder.findDividers(request);
-      console.log(`divider finder ${JSON.stringify(request)}: ${(seconds(start) * 1000).toFixed(1)} ms, ${found.length} candidates`);
+      const skipped = found.notSearched.length ? `, ${found.notSearched.length} kinds of string not searched` : '';
+      console.log(`divider finder ${JSON.stringify(request)}: ${(seconds(start) * 1000).toFixed(1)} ms, ${found.candidates.length} candidates${skipped}`);
     }
   } catch (error) {
     console.log(`divider finder not timed: ${(error as Error).message}`);

@@ -1,6 +1,9 @@
 import { describe, expect, it } from 'vitest';
-import { findDividers } from '../../../shared/finder/index.js';
+import { findDividers as findAll } from '../../../shared/finder/index.js';
 import type { DividerCandidate, FinderRequest } from '../../../shared/finder/index.js';
+
+/** The candidates within the tolerance (all kept ones when none is asked). */
+const findDividers = (request: FinderRequest): DividerCandidate[] => findAll(request).candidates;
 
 function deepFreeze<T>(value: T): T {
   if (value !== null && typeof value === 'object') {
@@ -70,7 +73,7 @@ describe('findDividers with an E-series', () => {
     }
   });
 
-  it('ranks by ratio error, then parts count, then power', () => {
+  it('ranks by ratio error, then parts count, then power, when the converter draws no bias current', () => {
     const candidates = findDividers({ maxInputVolts: 462, fullScaleVolts: 2, series: 'E24', maxTopCount: 4, maxCandidates: 100 });
     for (let i = 1; i < candidates.length; i++) {
       const [a, b] = [candidates[i - 1], candidates[i]];
@@ -174,7 +177,10 @@ describe('findDividers rejects bad requests', () => {
     [{ ...good, limits: { maxVoltsPerResistor: -5 } }, 'limits.maxVoltsPerResistor must be > 0'],
     [{ ...good, limits: { minOhms: 1e6, maxOhms: 1e3 } }, 'limits.maxOhms must be ≥ limits.minOhms'],
     [{ ...good, maxCandidates: 0 }, 'maxCandidates must be an integer from 1 to 1000'],
+    [{ ...good, inputResistanceOhms: 0 }, 'inputResistanceOhms must be > 0'],
+    [{ ...good, inputBiasAmps: -1e-9 }, 'inputBiasAmps must be a finite number ≥ 0'],
+    [{ ...good, maxRatioErrorFraction: -0.01 }, 'maxRatioErrorFraction must be > 0'],
   ])('rejects %o', (request, message) => {
-    expect(() => findDividers(request as FinderRequest)).toThrow(message);
+    expect(() => findAll(request as FinderRequest)).toThrow(message);
   });
 });
