@@ -100,6 +100,10 @@ function uncertaintySection(pdf: PdfWriter, report: ReviewReport): void {
     { size: 8.5, colour: u.current ? COLOURS.muted : COLOURS.red });
   for (const c of u.channels) {
     pdf.heading(`${c.name}: reading error, ${c.trials} Monte Carlo trials, p = ${c.coverageProbability}`, 2);
+    if (c.counterOverflowV?.length) {
+      pdf.paragraph(`Counter overflows at ${c.counterOverflowV.map((v) => formatEng(v, 'V')).join(', ')}: the firmware reads those counts modulo the counter's width, and the figures there include the wrong reading that gives.`,
+        { size: 8.5, bold: true });
+    }
     pdf.table(
       [{ header: 'Voltage', width: 80, align: 'right' }, { header: 'Monte Carlo mean', width: 100, align: 'right' }, { header: 'Monte Carlo interval', width: 140, align: 'right' }, { header: 'GUM U', width: 80, align: 'right' }, { header: 'Worst case', width: pdf.width - 400, align: 'right' }],
       c.points.map((p) => [formatEng(p.voltageV, 'V'), formatEng(p.monteCarloMeanV, 'V'), `${formatEng(p.monteCarloIntervalV.low, 'V')} to ${formatEng(p.monteCarloIntervalV.high, 'V')}`,
@@ -123,6 +127,9 @@ function chainSection(pdf: PdfWriter, report: ReviewReport): void {
     for (const stage of channel.stages) {
       pdf.heading(stage.stage, 2);
       pdf.table([{ header: 'Parameter', width: 220 }, { header: 'Value', width: pdf.width - 220 }], stage.rows.map((r) => [r.label, r.text]));
+    }
+    for (const w of channel.warnings ?? []) {
+      pdf.paragraph(`${w.level === 'info' ? 'Not checked' : 'Warning'}: ${w.message}`, { size: 8.5, colour: w.level === 'info' ? COLOURS.muted : COLOURS.ink });
     }
   }
 }
