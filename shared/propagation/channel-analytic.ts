@@ -56,10 +56,20 @@ export interface ChannelWorstCasePoint extends WorstCaseResult {
 
 /**
  * Worst-case reading error at every grid voltage: corners of all bounded inputs, quantisation
- * ±1 count, normal inputs at ±k·σ. Operating temperature is scanned (ends, reference and
- * calibration temperatures, interior points) and at each temperature every TCR and tempco takes
- * the sign its effect has there, so a cold extreme is found even when temperature has no
- * first-order effect at the centre of its range (see worstCase for the guarantee).
+ * ±1 count, normal inputs at ±k·σ (a Monte Carlo draw of a normal input can pass that).
+ * Operating temperature is scanned (ends, midpoint, reference and calibration temperatures) and
+ * at each temperature every TCR and tempco takes the sign its effect has there, so a cold extreme
+ * is found even when temperature has no first-order effect at the centre of its range.
+ * Why the sign corner is right here (worstCase condition a): at a fixed temperature every other
+ * input enters through positive factors (1 + δ)(1 + α(ΔT + Pθ) + βV), the Möbius ratio
+ * R_b'/(R_top + R_b'), the gain (1 + ε + γΔT), N/f of period capture and the read-back line, each
+ * monotone; a direction can reverse only where a quantity changes sign inside the box: the
+ * converter input near 0 V (bias current against gain), a nonlinearity bow over 25 % of full
+ * scale, or a counter that wraps. Calibrated read-back divides differences of such maps; the
+ * tests compare it with every corner.
+ * Temperature itself (condition b): at a fixed corner the error is a ratio of low-degree
+ * polynomials in ΔT, largest at an end of the range in every chain tested; an interior best is
+ * refined by golden-section search.
  * @param c compiled channel
  * @throws never for a compiled channel
  * @example channelWorstCase(compiled)[0].method

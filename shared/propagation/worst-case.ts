@@ -1,3 +1,4 @@
+import { CornerSearch, type Corners, type Extreme } from './corner-search.js';
 import type { UncertainInput } from './inputs.js';
 import type { MeasurementFunction } from './functional-model.js';
 
@@ -39,16 +40,6 @@ const INTERIOR_SCAN_POINTS = 1;
 const GOLDEN_STEPS = 12;
 const GOLDEN = (Math.sqrt(5) - 1) / 2;
 
-interface Extreme {
-  value: number;
-  signs: Int8Array;
-}
-
-interface Corners {
-  max: Extreme;
-  min: Extreme;
-}
-
 /**
  * Extreme-value (worst-case) analysis over the box x_i ∈ [centre_i − a_i, centre_i + a_i] of all
  * bounded inputs (a normal input's a = k·σ). The scanned input (when given) is tried at both
@@ -59,12 +50,14 @@ interface Corners {
  *   at that value, the others at their centres; and the best corner of the previous value),
  *   each improved by flipping one input at a time until no flip helps; the best corner found
  *   is then confirmed by flipping every pair of inputs, and improved further if a pair helps.
- * Guarantee: the result is attained by a point of the box, so it never overstates the extreme;
- * it equals the extreme when, at every value of the scanned input, f is monotone in each other
- * input with a direction the others cannot reverse, and the extreme over the scanned input lies
- * at a tried value or inside the golden-section bracket. A model monotone in each input at fixed
- * scanned value has its extremes at corners, so single and pair flips leave only couplings of
- * three or more inputs that reverse each other's directions.
+ * What it guarantees: every value returned is f at a point of the box, so it never lies outside
+ * the true range. It is the true extreme when (a) at each value of the scanned input, f is
+ * monotone in every other input in a direction the other inputs cannot reverse: the corner of the
+ * effect signs is then the extreme (move one input at a time to its better end; f never falls),
+ * and that corner is the first start; and (b) the extreme over the scanned input lies at a tried
+ * value or inside the refined bracket. With ≤ EXHAUSTIVE_LIMIT cornered inputs only (b) is needed.
+ * Where one input does reverse another's direction, the flips repair it; that part is a search,
+ * checked against exhaustive enumeration in the tests, not a proof.
  * @param inputs inputs in the order f reads them
  * @param model the measurement function
  * @param options the scanned input and its extra values (omit for a plain corner search)
@@ -75,112 +68,40 @@ export function worstCase(inputs: readonly UncertainInput[], model: MeasurementF
   if (inputs.length === 0) throw new Error('inputs must not be empty');
   const scanned = options.scanned ?? -1;
   if (scanned !== -1 && !(Number.isInteger(scanned) && scanned >= 0 && scanned < inputs.length)) throw new Error('scanned input must be an input index');
-  const x = Float64Array.from(inputs, (i) => i.centre);
-  const cornered = inputs.map((_, i) => i).filter((i) => i !== scanned && inputs[i].halfWidth > 0);
-  const n = cornered.length;
   const scanning = scanned >= 0 && inputs[scanned].halfWidth > 0;
-  let evaluated = 0;
-  const evaluate = (): number => {
-    evaluated++;
-    const y = model(x);
-    if (!Number.isFinite(y)) throw new Error('model is not finite at a worst-case corner');
-    return y;
-  };
-  const place = (j: number, sign: number): void => {
-    const input = inputs[cornered[j]];
-    x[cornered[j]] = input.centre + sign * input.halfWidth;
-  };
-  const at = (signs: Int8Array): number => {
-    for (let j = 0; j < n; j++) place(j, signs[j]);
-    return evaluate();
-  };
-
-  /** Every corner at the current scanned value. */
-  const exhaustive = (): Corners => {
-    const max = { value: -Infinity, signs: new Int8Array(n) };
-    const min = { value: Infinity, signs: new Int8Array(n) };
-    const signs = new Int8Array(n).fill(-1);
-    for (let k = 0; k < 2 ** n; k++) {
-      // Gray-code order: corner k differs from corner k − 1 in input ctz(k) only.
-      if (k > 0) signs[31 - Math.clz32(k & -k)] *= -1;
-      const y = at(signs);
-      if (y > max.value) { max.value = y; max.signs.set(signs); }
-      if (y < min.value) { min.value = y; min.signs.set(signs); }
-    }
-    return { max, min };
-  };
-
-  /** Single flips until none raises goal·f; returns goal·f at the final corner. */
-  const climb = (signs: Int8Array, goal: number): number => {
-    let best = goal * at(signs);
-    for (let improved = true; improved;) {
-      improved = false;
-      for (let j = 0; j < n; j++) {
-        place(j, -signs[j]);
-        const y = goal * evaluate();
-        if (y > best) {
-          best = y;
-          signs[j] = -signs[j];
-          improved = true;
-        } else place(j, signs[j]);
-      }
-    }
-    return best;
-  };
-
-  /** Corners by effect signs at the current scanned value, and from the warm starts. */
-  const local = (warm?: Corners): Corners => {
-    const direction = new Int8Array(n);
-    for (let j = 0; j < n; j++) x[cornered[j]] = inputs[cornered[j]].centre;
-    for (let j = 0; j < n; j++) {
-      place(j, 1);
-      const up = evaluate();
-      place(j, -1);
-      direction[j] = up >= evaluate() ? 1 : -1;
-      x[cornered[j]] = inputs[cornered[j]].centre;
-    }
-    const result = { max: { value: -Infinity, signs: direction }, min: { value: Infinity, signs: direction } };
-    for (const goal of [1, -1]) {
-      const starts = [Int8Array.from(direction, (s) => goal * s)];
-      const previous = goal === 1 ? warm?.max.signs : warm?.min.signs;
-      if (previous && previous.some((s, j) => s !== starts[0][j])) starts.push(Int8Array.from(previous));
-      for (const signs of starts) {
-        const value = goal * climb(signs, goal);
-        if (goal === 1 && value > result.max.value) result.max = { value, signs };
-        if (goal === -1 && value < result.min.value) result.min = { value, signs };
-      }
-    }
-    return result;
-  };
-
-  const search = (warm?: Corners): Corners => (n <= EXHAUSTIVE_LIMIT ? exhaustive() : local(warm));
+  const corners = new CornerSearch(inputs, model, scanned);
+  const n = corners.size;
+  const exhaustive = n <= EXHAUSTIVE_LIMIT;
   const best: { max: Extreme & { at: number }; min: Extreme & { at: number } } = {
     max: { value: -Infinity, signs: new Int8Array(n), at: NaN },
     min: { value: Infinity, signs: new Int8Array(n), at: NaN },
   };
   /** Searches the corners at scanned value t and keeps any new extreme. */
   const tryAt = (t: number, warm?: Corners): Corners => {
-    if (scanning) x[scanned] = t;
-    const found = search(warm);
-    if (found.max.value > best.max.value) best.max = { ...found.max, signs: Int8Array.from(found.max.signs), at: t };
-    if (found.min.value < best.min.value) best.min = { ...found.min, signs: Int8Array.from(found.min.signs), at: t };
+    if (scanning) corners.x[scanned] = t;
+    const found = exhaustive ? corners.exhaustive() : corners.fromSigns(warm);
+    if (found.max.value > best.max.value) best.max = { value: found.max.value, signs: Int8Array.from(found.max.signs), at: t };
+    if (found.min.value < best.min.value) best.min = { value: found.min.value, signs: Int8Array.from(found.min.signs), at: t };
     return found;
   };
-  const values = scanning ? scanValuesOf(inputs[scanned], options.scanValues ?? []) : [NaN];
   const tried: { t: number; found: Corners }[] = [];
-  for (const t of values) tried.push({ t, found: tryAt(t, tried.at(-1)?.found) });
+  for (const t of scanning ? scanValuesOf(inputs[scanned], options.scanValues ?? []) : [NaN]) tried.push({ t, found: tryAt(t, tried.at(-1)?.found) });
   for (const goal of scanning ? [1, -1] : []) {
     const k = tried.findIndex((v) => v.t === (goal === 1 ? best.max.at : best.min.at));
     if (k > 0 && k < tried.length - 1) refine(tried[k - 1].t, tried[k + 1].t, goal, tried[k].found);
   }
-  if (n > EXHAUSTIVE_LIMIT) {
-    for (const goal of [1, -1]) confirm(goal);
+  if (!exhaustive) {
+    for (const goal of [1, -1]) {
+      const kept = goal === 1 ? best.max : best.min;
+      if (scanning) corners.x[scanned] = kept.at;
+      kept.value = goal * corners.confirm(kept.signs, goal);
+    }
   }
   const minimum = best.min.value;
   const maximum = best.max.value;
   return {
     minimum, maximum, maxAbs: Math.max(Math.abs(minimum), Math.abs(maximum)),
-    method: n <= EXHAUSTIVE_LIMIT ? 'exhaustive' : 'signs-and-flips', boundedInputs: n + (scanning ? 1 : 0), cornersEvaluated: evaluated,
+    method: exhaustive ? 'exhaustive' : 'signs-and-flips', boundedInputs: n + (scanning ? 1 : 0), cornersEvaluated: corners.evaluated,
   };
 
   /** Golden-section search of the scanned value in [low, high] for the largest goal·f. */
@@ -201,37 +122,6 @@ export function worstCase(inputs: readonly UncertainInput[], model: MeasurementF
       } else {
         a = c; c = d; fc = fd; d = a + GOLDEN * (b - a); fd = score(d);
       }
-    }
-  }
-
-  /** Pair flips at the best corner; any gain restarts single flips there. */
-  function confirm(goal: number): void {
-    const kept = goal === 1 ? best.max : best.min;
-    if (scanning) x[scanned] = kept.at;
-    const signs = Int8Array.from(kept.signs);
-    let score = climb(signs, goal);
-    for (let improved = true; improved;) {
-      improved = false;
-      for (let j = 0; j < n && !improved; j++) {
-        for (let k = j + 1; k < n && !improved; k++) {
-          place(j, -signs[j]);
-          place(k, -signs[k]);
-          const y = goal * evaluate();
-          if (y > score) {
-            signs[j] = -signs[j];
-            signs[k] = -signs[k];
-            score = climb(signs, goal);
-            improved = true;
-          } else {
-            place(j, signs[j]);
-            place(k, signs[k]);
-          }
-        }
-      }
-    }
-    if (score > goal * kept.value) {
-      kept.value = goal * score;
-      kept.signs = signs;
     }
   }
 }
