@@ -1,6 +1,6 @@
 import { describe, it, expect } from 'vitest';
 import {
-  gumPropagation, inputStandardUncertainty, numericalTolerance, shortestInterval, symmetricInterval, uncertainInput, worstCase,
+  gumPropagation, inputStandardUncertainty, numericalTolerance, shortestInterval, summariseValues, symmetricInterval, uncertainInput, worstCase,
 } from '../../../shared/propagation/index.js';
 import { deepFreeze } from '../../fixtures/deep-freeze.js';
 
@@ -42,6 +42,13 @@ describe('numerical tolerance and coverage intervals', () => {
     const skewed = Float64Array.from({ length: 100 }, (_, i) => i * i);
     expect(shortestInterval(skewed, 0.9)).toEqual({ low: 0, high: 90 ** 2 }); // JCGM 101:2008 7.7.2: q = 90, shortest is [y₍₁₎, y₍₉₁₎]
     expect(() => symmetricInterval(Float64Array.of(1, 2), 0.95)).toThrow('trials are needed');
+  });
+
+  it('keeps the smallest and largest trial of a Monte Carlo summary', () => {
+    const values = deepFreeze(Float64Array.of(0.5, -2, 3.25, 1));
+    const summary = summariseValues(values, 0.5, 4);
+    expect([summary.minimum, summary.maximum, summary.maxAbs]).toEqual([-2, 3.25, 3.25]); // by inspection of the four values
+    expect(Array.from(values)).toEqual([0.5, -2, 3.25, 1]);
   });
 });
 
