@@ -64,6 +64,20 @@ export function minimumBatchTrials(coverageProbability: number): number {
   return ceilCount(100 / (1 - coverageProbability));
 }
 
+/**
+ * Fewest trials a study should summarise into an interval at probability p: ⌈50/(1 − p)⌉, so
+ * about 25 trials lie beyond each end of a symmetric interval and neither end is one of a handful
+ * of extremes (1000 at 95 %, 5·10⁴ at 99.9 %). Between this and recommendedTrials a study runs
+ * with a warning.
+ * @param coverageProbability p in (0, 1)
+ * @throws if p is outside (0, 1)
+ * @example minimumStudyTrials(0.999) // 50000
+ */
+export function minimumStudyTrials(coverageProbability: number): number {
+  checkProbability(coverageProbability);
+  return ceilCount(50 / (1 - coverageProbability));
+}
+
 function coverageCounts(count: number, coverageProbability: number): number {
   checkProbability(coverageProbability);
   const q = coverageCount(count, coverageProbability);

@@ -1,6 +1,6 @@
 export { uncertainInput, inputStandardUncertainty } from './inputs.js';
 export type { UncertainInput } from './inputs.js';
-export { symmetricInterval, shortestInterval, intervalEndUncertainty, smallestIntervalTrials, recommendedTrials, minimumBatchTrials } from './coverage.js';
+export { symmetricInterval, shortestInterval, intervalEndUncertainty, smallestIntervalTrials, recommendedTrials, minimumBatchTrials, minimumStudyTrials } from './coverage.js';
 export type { CoverageInterval, SampledInterval } from './coverage.js';
 export { histogramOf } from './histogram.js';
 export type { Histogram } from './histogram.js';

@@ -1,8 +1,9 @@
 import { describe, expect, it } from 'vitest';
 import {
-  functionalKernel, intervalEndUncertainty, minimumBatchTrials, recommendedTrials, runMonteCarlo, smallestIntervalTrials,
+  functionalKernel, intervalEndUncertainty, minimumBatchTrials, minimumStudyTrials, recommendedTrials, runMonteCarlo, smallestIntervalTrials,
   symmetricInterval, uncertainInput,
 } from '../../../shared/propagation/index.js';
+import { uncertaintyStudyRequestSchema } from '../../../shared/schemas/runs.js';
 import { deepFreeze } from '../../fixtures/deep-freeze.js';
 
 const ramp = (count: number) => Float64Array.from({ length: count }, (_, i) => i);
@@ -35,6 +36,8 @@ describe('how many trials a coverage interval needs', () => {
     expect(recommendedTrials(0.9999)).toBe(100_000_000);
     expect(minimumBatchTrials(0.95)).toBe(2_000); // JCGM 101:2008 7.9.4 b): J = ⌈100/(1 − p)⌉
     expect(minimumBatchTrials(0.999)).toBe(100_000);
+    expect(minimumStudyTrials(0.95)).toBe(1_000); // 25 beyond each end: 0.025·1000 (by hand)
+    expect(minimumStudyTrials(0.999)).toBe(50_000); // 0.0005·50 000 = 25 (by hand)
     expect(() => recommendedTrials(1)).toThrow('coverage probability must be in (0, 1)');
     expect(() => smallestIntervalTrials(0)).toThrow('coverage probability must be in (0, 1)');
   });
@@ -70,5 +73,23 @@ describe('uncertainty of the interval ends from the sample', () => {
     const ends = intervalEndUncertainty(ramp(least), 0.99);
     expect(ends.lowStandardUncertainty).toBeGreaterThan(0); // the rank above still moves the end (in this test)
     expect(() => intervalEndUncertainty(ramp(least - 1), 0.99)).toThrow('trials are needed');
+  });
+});
+
+describe('what a study request may ask for', () => {
+  const fieldsOf = (body: object) => {
+    const parsed = uncertaintyStudyRequestSchema.safeParse(body);
+    return parsed.success ? {} : Object.fromEntries(parsed.error.issues.map((i) => [i.path.join('.'), i.message]));
+  };
+
+  it('refuses too few trials for the coverage probability, naming the field and the numbers', () => {
+    // the issue's cases: 10³ trials at 99.9 % and 10⁴ at 99.99 % leave an interval of near-extreme values
+    expect(fieldsOf({ trials: 1_000, coverageProbability: 0.999 })).toEqual({
+      trials: 'trials must be ≥ 50000 for a 99.9 % coverage interval, 25 beyond each end; 10000000 are recommended', // JCGM 101:2008 7.2.2 for the second number
+    });
+    expect(fieldsOf({ trials: 10_000, coverageProbability: 0.9999 }).trials).toMatch(/^trials must be ≥ 500000 for a 99.99 % coverage interval/);
+    expect(fieldsOf({ trials: 50_000, coverageProbability: 0.999 })).toEqual({});
+    expect(fieldsOf({ trials: 1_000 })).toEqual({}); // 95 %: quick looks stay possible, with a warning on the page
+    expect(fieldsOf({ significantDigits: 2, coverageProbability: 0.99999 }).coverageProbability).toMatch(/^coverageProbability must be ≤ 0.99995/);
   });
 });
