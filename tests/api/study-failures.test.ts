@@ -42,6 +42,25 @@ describe('studies that cannot give finite numbers', () => {
     expect(after.channels[0].definition.divider.top[0].tolerancePct).toBe(revision.channels[0].definition.divider.top[0].tolerancePct);
   });
 
+  it('lists a rating that was not entered in the review report as a stress check not made', async () => {
+    const designer = await t.signIn('designer@example.test', 'tallyvolt-designer');
+    const revision = (await designer.get(`/api/revisions/${revisionId}`)).body.revision;
+    type Definition = { divider: { top: { ratedPowerW?: number }[] } };
+    const channels = revision.channels.map((c: { key: string; definition: Definition }) => ({ key: c.key, definition: structuredClone(c.definition) }));
+    delete channels[0].definition.divider.top[0].ratedPowerW;
+    const saved = await designer.put(`/api/revisions/${revisionId}/channels`).send({ channels, baseVersion: revision.version });
+    expect(saved.status).toBe(200);
+    const report = (await designer.get(`/api/revisions/${revisionId}/report`)).body.report;
+    const warnings = report.channels[0].warnings as { level: string; message: string; where: string }[];
+    const note = warnings.find((w) => w.where === 'divider.top[0]');
+    expect(note).toMatchObject({ level: 'info' });
+    // template: 500 V over 4 × 1 MΩ + 32.4 kΩ ‖ 10 MΩ, P = I²R (Ohm's law, in the test)
+    const loaded = (32.4e3 * 10e6) / (32.4e3 + 10e6);
+    const watts = (500 / (4e6 + loaded)) ** 2 * 1e6;
+    expect(note?.message).toBe(`top resistor 1 power rating not entered: stress not checked (dissipates ${Number(watts.toPrecision(3))} W at 500 V)`);
+    expect(report.channels[1].warnings.some((w: { where: string }) => w.where === 'divider.top[0]')).toBe(false);
+  });
+
   it('ends a run as failed, naming where, when its result holds a number that is not finite', async () => {
     const designer = await t.signIn('designer@example.test', 'tallyvolt-designer');
     const run = t.pool.run.bind(t.pool);
