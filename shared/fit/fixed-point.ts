@@ -6,33 +6,18 @@
  * each a_k kept as q_k/2^shift_k with 30 significant bits, and evaluated by Horner's rule in 64-bit integers with
  * the running sum in units of 2^−A V. Every bound below is chosen so that no intermediate leaves int64 and no
  * negative value is shifted; rounding is done by truncating division only (C99 6.5.5), which the header's C
- * helper and fixedPointReading here do identically.
+ * helper and fixedPointReading (fixed-point-reading.ts) do identically.
  */
 import {
-  absDyadic, addDyadic, ceilLog2, ceilToScale, divRound, dyadic, dyadicToNumber, mulDyadic, negDyadic, roundToScale, type Dyadic,
+  absDyadic, addDyadic, ceilLog2, ceilToScale, dyadic, dyadicToNumber, mulDyadic, negDyadic, roundToScale, type Dyadic,
 } from './dyadic.js';
+import { fixedPointReading, INPUT_MAX, stepTerm, U_FRAC_BITS, type FixedPointRepresentation } from './fixed-point-reading.js';
 
-/** Bits after the binary point of u. */
-export const U_FRAC_BITS = 30;
 /** Inputs are clamped to |u| ≤ 2 (half the calibrated span beyond either end) so the integers cannot overflow. */
 const U_LIMIT_LOG2 = 1;
-const INPUT_MAX = 2 ** 32 - 1;
 const SHIFT_MAX = 255;
 
-export interface FixedPointForm {
-  /** FB: the input is the frequency in Hz × 2^FB, as an unsigned 32-bit integer. */
-  frequencyFracBits: number;
-  /** MID and HALF in input units: u = (F − MID)/HALF. */
-  midFx: number;
-  halfFx: number;
-  /** Inputs are clamped to [lowFx, highFx], i.e. |u| ≤ 2. */
-  lowFx: number;
-  highFx: number;
-  uFracBits: number;
-  /** A: the running sum and the result are volts × 2^A. */
-  voltsFracBits: number;
-  /** a_k = q/2^shift, the coefficients of V(u), k = 0…degree. */
-  scaled: { q: number; shift: number }[];
+export interface FixedPointForm extends FixedPointRepresentation {
   /** Upper bound of |fixed − float form| over the calibrated range, from the rounding steps, volts. */
   maxDepartureV: number;
   /** The largest |fixed − float form| found at gridPoints input values spread over the calibrated range, volts. */
@@ -99,32 +84,8 @@ export function fixedPointForm(coefficients: readonly number[], rangeHz: { min: 
   return { ...form, ...departure(form, a, c, rangeHz, gridPoints) };
 }
 
-type Representation = Omit<FixedPointForm, 'maxDepartureV' | 'largestFoundV' | 'gridPoints'>;
-
-/** Coefficient k as the integer the Horner step adds, units of 2^−A V (|q| ≤ 2^30, so a shift past 31 leaves 0). */
-const stepTerm = (form: Representation, k: number): bigint => {
-  const d = form.scaled[k].shift - form.voltsFracBits;
-  return d > 31 ? 0n : divRound(BigInt(form.scaled[k].q), 1n << BigInt(d));
-};
-
-/**
- * The integer the header's fixed-point function returns for input F (volts × 2^A), by the same steps.
- * @param form a result of fixedPointForm
- * @param frequencyFx the frequency in Hz × 2^FB, an integer 0…2^32 − 1
- * @throws Error when the input is not such an integer
- * @example fixedPointReading(form, 20000 * 2 ** form.frequencyFracBits) / 2 ** form.voltsFracBits // volts at 20 kHz
- */
-export function fixedPointReading(form: Representation, frequencyFx: number): number {
-  if (!Number.isInteger(frequencyFx) || frequencyFx < 0 || frequencyFx > INPUT_MAX) throw new Error('frequency input must be an integer 0…2^32 − 1');
-  const f = BigInt(Math.min(Math.max(frequencyFx, form.lowFx), form.highFx));
-  const u = divRound((f - BigInt(form.midFx)) * (1n << BigInt(U_FRAC_BITS)), BigInt(form.halfFx));
-  let acc = 0n;
-  for (let k = form.scaled.length - 1; k >= 0; k--) acc = divRound(acc * u, 1n << BigInt(U_FRAC_BITS)) + stepTerm(form, k);
-  return Number(acc);
-}
-
 /** Rounding bound over |u| ≤ 1 and the largest departure found on the grid, both against Σ c_k f^k evaluated exactly. */
-function departure(form: Representation, a: Dyadic[], c: Dyadic[], rangeHz: { min: number; max: number }, gridPoints: number) {
+function departure(form: FixedPointRepresentation, a: Dyadic[], c: Dyadic[], rangeHz: { min: number; max: number }, gridPoints: number) {
   const n = a.length - 1;
   const unit = 2 ** -form.voltsFracBits;
   const r = 1 + 2 ** -U_FRAC_BITS; // |ũ| after rounding u

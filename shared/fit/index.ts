@@ -14,3 +14,7 @@ export { interpolatedUncertainty } from './new-reading-uncertainty.js';
 export { combinedDecision, guardedAcceptanceRule, guardedDecision } from './guarded-acceptance.js';
 export type { AcceptanceDecision, GuardedDecision } from './guarded-acceptance.js';
 export { withCommonReferenceError } from './reference-samples.js';
+export { fixedPointForm } from './fixed-point.js';
+export type { FixedPointForm } from './fixed-point.js';
+export { fixedPointReading } from './fixed-point-reading.js';
+export type { FixedPointRepresentation } from './fixed-point-reading.js';

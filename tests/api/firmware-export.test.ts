@@ -4,7 +4,8 @@ import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createTestApp, type TestApp } from '../helpers/test-app.js';
 import { cHeader, type ExportContext } from '../../server/api/calibration/firmware-export.js';
-import { fixedPointReading, type FixedPointForm } from '../../shared/fit/fixed-point.js';
+import type { FixedPointForm } from '../../shared/fit/fixed-point.js';
+import { fixedPointReading } from '../../shared/fit/fixed-point-reading.js';
 import type { FitView } from '../../shared/schemas/calibration-views.js';
 
 type Agent = Awaited<ReturnType<TestApp['signIn']>>;

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { addDyadic, ceilLog2, divRound, dyadic, dyadicToNumber, mulDyadic, negDyadic, type Dyadic } from '../../../shared/fit/dyadic.js';
-import { fixedPointForm, fixedPointReading, type FixedPointForm } from '../../../shared/fit/fixed-point.js';
+import { fixedPointForm, type FixedPointForm } from '../../../shared/fit/fixed-point.js';
+import { fixedPointReading } from '../../../shared/fit/fixed-point-reading.js';
 
 /** Σ c_k·(F·2^−FB)^k exactly, from the coefficients' exact binary values (in this test). */
 function exactVolts(coefficients: readonly number[], frequencyFx: number, fb: number): Dyadic {
