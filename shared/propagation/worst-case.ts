@@ -32,8 +32,8 @@ export interface WorstCaseOptions {
   scanValues?: readonly number[];
 }
 
-/** Most cornered inputs searched exhaustively at each scanned value (2^10 corners). */
-export const EXHAUSTIVE_LIMIT = 10;
+/** Most cornered inputs searched exhaustively at each scanned value (2^8 corners, about what the sign search costs). */
+export const EXHAUSTIVE_LIMIT = 8;
 /** Evenly spaced interior values of the scanned input tried besides its ends (the midpoint). */
 const INTERIOR_SCAN_POINTS = 1;
 /** Golden-section steps next to an interior best scanned value (bracket shrinks to 0.618^12 ≈ 0.3 %). */
