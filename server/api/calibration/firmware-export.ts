@@ -51,7 +51,7 @@ export function cHeader(ctx: ExportContext, fit: FitView): string {
  * in Q${fixed.uFracBits}, within -1..1 over the calibrated range (inputs beyond half the span outside it are clamped); volts = sum over k of ${lower}_u_q[k] / 2^${lower}_u_shift[k] * u^k by Horner's
  * rule in int64, each coefficient with 30 significant bits, the result in units of 2^-${fixed.voltsFracBits} V.
  * Largest fixed-point departure from the float form (the sum above in exact arithmetic with the fitted coefficients) over the
- * calibrated range: at most ${boundText(fixed.maxDepartureV)} V (a bound from the rounding steps); the largest at ${fixed.gridPoints} inputs computed exactly is ${fixed.largestFoundV.toPrecision(2)} V.
+ * calibrated range: at most ${boundText(fixed.maxDepartureV)} V (a bound from the rounding steps); the largest at ${fixed.gridPoints} inputs computed exactly is ${fixed.largestFoundV.toExponential(1)} V.
  * Valid input: ${fit.rangeV.min} V to ${fit.rangeV.max} V (${fit.rangeHz.min.toPrecision(6)} Hz to ${fit.rangeHz.max.toPrecision(6)} Hz); outside it the fit is extrapolated.
  * Expanded uncertainty (95 %) of one reading, before drift: the fit and a new reading's scatter, the reference${fit.inverse.exact ? '' : ' and the inverse polynomial\'s largest departure (as a rectangular bound)'}: ${uncertaintyLine(fit)}.
  */
