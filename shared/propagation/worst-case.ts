@@ -90,11 +90,20 @@ export function worstCase(inputs: readonly UncertainInput[], model: MeasurementF
     const k = tried.findIndex((v) => v.t === (goal === 1 ? best.max.at : best.min.at));
     if (k > 0 && k < tried.length - 1) refine(tried[k - 1].t, tried[k + 1].t, goal, tried[k].found);
   }
-  if (!exhaustive) {
-    for (const goal of [1, -1]) {
-      const kept = goal === 1 ? best.max : best.min;
-      if (scanning) corners.x[scanned] = kept.at;
-      kept.value = goal * corners.confirm(kept.signs, goal);
+  // Pair flips at the best corner of each end of the scanned range and at the best overall: an
+  // input whose effect is nil at the centre (bias current before a TCR moves it) can sit at the
+  // wrong end of a pair there.
+  for (const goal of exhaustive ? [] : [1, -1]) {
+    const kept = goal === 1 ? best.max : best.min;
+    const starts = [{ t: kept.at, signs: kept.signs }];
+    for (const end of scanning ? [tried[0], tried[tried.length - 1]] : []) {
+      if (end.t !== kept.at) starts.push({ t: end.t, signs: goal === 1 ? end.found.max.signs : end.found.min.signs });
+    }
+    for (const start of starts) {
+      if (scanning) corners.x[scanned] = start.t;
+      const signs = Int8Array.from(start.signs);
+      const value = goal * corners.confirm(signs, goal);
+      if (goal * value > goal * kept.value || start.signs === kept.signs) Object.assign(kept, { value, signs, at: start.t });
     }
   }
   const minimum = best.min.value;
