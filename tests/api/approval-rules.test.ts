@@ -186,7 +186,8 @@ describe('who may approve a revision, and what an approval against failing check
 
   it('approves a revision that passes every check without a justification', async () => {
     const revisionId = await newRevision('Clean pass');
-    await saveMarginInputs(designer, revisionId, { faults: [{ kind: 'open-precharge' }, { kind: 'bypassed-precharge', residualOhm: 0 }] });
+    // 2000 trials on 500 shared boards can show a 1 % allowance (3/500 < 0.01, rule of three, common practice).
+    await saveMarginInputs(designer, revisionId, { faults: [{ kind: 'open-precharge' }, { kind: 'bypassed-precharge', residualOhm: 0 }], allowedProbability: 0.01 });
     await study(designer, revisionId, 'uncertainty');
     await study(designer, revisionId, 'margin');
     expect((await designer.post(`/api/revisions/${revisionId}/submit`)).status).toBe(200);

@@ -94,9 +94,21 @@ describe('the review of a revision in the browser', () => {
     await page.locator('.ratio-chart').screenshot({ path: path.join(ARTIFACTS_DIR, 'review-lead-ratio-chart.png') });
 
     await page.getByLabel('Comment for the designer').fill('Accepted for the bench build; the missing-capacitance case is covered by the bench check.');
+    const failingNow = page.getByRole('list', { name: 'What fails now' });
+    await expect.poll(() => failingNow.innerText()).toContain('30 % of the link capacitance missing is not caught');
     await page.getByRole('button', { name: 'Approve revision B' }).click();
+    // A failing revision is not approved by one click: the confirmation names what fails and asks why.
+    const override = page.getByRole('dialog', { name: /^Approve revision B against/ });
+    await expect.poll(() => override.getByRole('list', { name: 'Failing checks' }).innerText()).toContain('30 % of the link capacitance missing is not caught');
+    await override.getByRole('button', { name: 'Approve with an override' }).click();
+    await expect.poll(() => override.getByText(/Write at least 20 characters/).isVisible()).toBe(true);
+    expect(await page.locator('h1').innerText()).not.toContain('Approved');
+    await override.getByLabel('Justification').fill('The missing-capacitance case is caught by the bench check before first power-up.');
+    await rig.screenshot('review-lead-override');
+    await override.getByRole('button', { name: 'Approve with an override' }).click();
     const history = page.getByRole('region', { name: 'Sign-off history' });
     await expect.poll(() => history.innerText()).toContain('Accepted for the bench build');
+    expect(await history.innerText()).toMatch(/Approved with an override[\s\S]*30 % of the link capacitance missing is not caught[\s\S]*caught by the bench check before first power-up/);
     await expect.poll(() => page.locator('h1').innerText()).toContain('Approved');
     await rig.screenshot('review-lead-approved');
     await signOut(page);
@@ -111,10 +123,11 @@ describe('the review of a revision in the browser', () => {
     await expect.poll(() => page.locator('h1').innerText()).toContain('PM-2 pack monitor, revision B');
     await expect.poll(() => page.getByRole('link', { name: 'Download PDF' }).getAttribute('href')).toBe(`/api/revisions/${revisionId}/report.pdf`);
     await expect.poll(() => page.locator('.ratio-chart canvas').isVisible()).toBe(true);
+    expect(await page.getByRole('region', { name: 'Sign-off history' }).innerText()).toContain('caught by the bench check before first power-up');
     await rig.screenshot('review-report');
     await page.emulateMedia({ media: 'print' });
     expect(await page.getByRole('navigation', { name: 'Main' }).isVisible()).toBe(false);
     await rig.screenshot('review-report-print');
     await page.emulateMedia({ media: 'screen' });
-  }, 90_000);
+  }, 150_000);
 });

@@ -25,10 +25,13 @@ export async function failingChecks(dataSource: DataSource, revision: Revision):
     if (kind === 'margin' && run.result) {
       const result = run.result as unknown as MarginStudyResult;
       const faultKeys = new Set(result.faults.map((f) => f.key));
+      // A criterion the study had too few trials to show is not passed either; it is named as such.
       for (const row of result.summary.filter((c) => !c.pass)) {
+        const unshown = row.outcome === 'not-shown';
+        const fault = row.criterion.replace(/^Fault caught: /, '');
         failing.push(faultKeys.has(row.key)
-          ? { key: `fault:${row.key}`, label: `Fault detection fails: ${row.criterion.replace(/^Fault caught: /, '')} is not caught` }
-          : { key: `margin:${row.key}`, label: `Margin fails: ${row.criterion}` });
+          ? { key: `fault:${row.key}`, label: unshown ? `Fault detection not shown: ${fault} (too few trials to show it is caught)` : `Fault detection fails: ${fault} is not caught` }
+          : { key: `margin:${row.key}`, label: unshown ? `Margin not shown: ${row.criterion} (too few trials to show it)` : `Margin fails: ${row.criterion}` });
       }
     }
   }
