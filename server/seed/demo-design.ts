@@ -34,7 +34,8 @@ async function seedFinishedStudies(dataSource: DataSource, revisionId: number, r
   const uncertaintyInputs: UncertaintyRunInputs = { channels, coverageProbability: 0.95, gridPoints: 5 };
   const uncertainty = { channels: channels.map((c) => ({ key: c.key, name: c.definition.name,
     study: channelStudy(c.definition, { seed, trials: 2000, gridPoints: 5, coverageProbability: 0.95 }) })) };
-  const { data, hash } = await marginStudyData(dataSource, revision, { seed, trials: 20_000, faultTrials: 2000, readingErrorTrials: 2000 });
+  // Boards as many as trials and 5000 per fault case: enough to show the default allowance of 10⁻³ (≥ 2995 each).
+  const { data, hash } = await marginStudyData(dataSource, revision, { seed, trials: 20_000, faultTrials: 5000, readingErrorTrials: 20_000 });
   const margin = computeMarginStudy(data);
   const runs = dataSource.getRepository(AnalysisRun);
   const done = { state: 'done' as const, progress: 1, requestedById: requester.id, startedAt: new Date(), finishedAt: new Date(), durationMs: 0, adaptiveDigits: null, seed };
