@@ -48,8 +48,9 @@ const GOLDEN = (Math.sqrt(5) - 1) / 2;
  * - with ≤ EXHAUSTIVE_LIMIT of them, all 2^n corners (exact at that value);
  * - otherwise from two starts (the signs of each input's effect f(x + a_i e_i) − f(x − a_i e_i)
  *   at that value, the others at their centres; and the best corner of the previous value),
- *   each improved by flipping one input at a time until no flip helps; the best corner found
- *   is then confirmed by flipping every pair of inputs, and improved further if a pair helps.
+ *   each improved by flipping one input at a time until no flip helps; the best corners at the
+ *   two ends of the scanned range and the best overall are then confirmed by flipping every
+ *   pair of inputs, and improved further if a pair helps.
  * What it guarantees: every value returned is f at a point of the box, so it never lies outside
  * the true range. It is the true extreme when (a) at each value of the scanned input, f is
  * monotone in every other input in a direction the other inputs cannot reverse: the corner of the
