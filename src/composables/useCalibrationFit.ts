@@ -19,6 +19,11 @@ const INVERSE_UNITS = ['V', 'V/Hz', 'V/Hz²', 'V/Hz³'];
 const SUBSCRIPTS = ['₀', '₁', '₂', '₃'];
 const POWERS = ['', '', '²', '³'];
 
+function plainScatterHz(points: { residualHz: number | null }[], degreesOfFreedom: number): number {
+  const squares = points.reduce((sum, p) => sum + (p.residualHz ?? 0) ** 2, 0);
+  return Math.sqrt(squares / degreesOfFreedom);
+}
+
 /** What the fit panel, the charts and the points table read from a session's analysis. */
 export function useCalibrationFit(session: Ref<SessionDetail | null>) {
   const fit = computed(() => session.value?.analysis.fit ?? null);
@@ -59,7 +64,8 @@ export function useCalibrationFit(session: Ref<SessionDetail | null>) {
     const f = fit.value;
     if (!f) return null;
     return {
-      residualSd: formatEng(f.residualStandardDeviationHz, 'Hz', 3),
+      // A weighted fit's s is at unit weight (the Birge ratio, no unit), so the scatter in hertz is the plain √(Σe²/ν).
+      residualSd: formatEng(f.settings.weighted ? plainScatterHz(f.points, f.degreesOfFreedom) : f.residualStandardDeviationHz, 'Hz', 3),
       rSquared: f.rSquared >= 0.999999 ? formatPlain(f.rSquared, '', 9) : formatPlain(f.rSquared, '', 6),
       pointsUsed: f.pointsUsed,
       degreesOfFreedom: f.degreesOfFreedom,
