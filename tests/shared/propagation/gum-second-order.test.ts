@@ -1,8 +1,7 @@
 import { describe, it, expect } from 'vitest';
 import { channelSchema } from '../../../shared/schemas/chain.js';
 import { compileChannel } from '../../../shared/chain/index.js';
-import { channelGum, channelKernel, gumPropagation, runMonteCarlo, uncertainInput } from '../../../shared/propagation/index.js';
-import { crossTerms } from '../../../shared/propagation/gum-second-order.js';
+import { channelGum, channelKernel, crossTerms, gumPropagation, runMonteCarlo, uncertainInput } from '../../../shared/propagation/index.js';
 import { deepFreeze } from '../../fixtures/deep-freeze.js';
 
 const input = (i: number, halfWidth: number, centre = 0) =>
