@@ -41,7 +41,7 @@ function runSearch(plan: SearchPlan): { candidates: FinderResult['candidates']; 
   }
   if (plan.mixedTopStrings) {
     // Only values that fit in a top string at all, and none beyond the largest top the limits allow.
-    const highestTop = limitWindow(plan, state.loaded[0])[1];
+    const highestTop = limitWindow(plan, null, state.loaded[0])[1];
     const usable = plan.values.flatMap((part, index) => (part.ohms <= highestTop && usableInTop(plan, part) ? [index] : []));
     const topIndex = Int32Array.from(usable);
     const ohms = usable.map((index) => plan.values[index].ohms);

@@ -34,20 +34,55 @@ export function searchState(plan: SearchPlan, shortlist: CandidateShortlist): Se
   return { plan, shortlist, loaded, seen: new Set(), cutWalks: 0 };
 }
 
-/** The range of R_t allowed by the total-resistance and bleed-current limits for one bottom. */
-export function limitWindow(plan: SearchPlan, loadedOhms: number): [number, number] {
+/**
+ * The range of R_t the limits allow with one bottom: total resistance and bleed current, and, when
+ * the bottom part is given, its own voltage V_b = V·R_b'/(R_t + R_b') and power V_b²/R_b.
+ * @param plan limits (V, W, A, Ω) and the highest input V
+ * @param bottom the bottom part, or null for the totals alone
+ * @param loadedOhms R_b' (Ω)
+ * @returns [lowest, highest] R_t in Ω
+ */
+export function limitWindow(plan: SearchPlan, bottom: SearchValue | null, loadedOhms: number): [number, number] {
   const { limits, maxInputVolts } = plan;
   const lowestTotal = Math.max(limits.minTotalOhms, maxInputVolts / limits.maxBleedAmps);
   const highestTotal = Math.min(limits.maxTotalOhms, maxInputVolts / limits.minBleedAmps);
-  return [lowestTotal - loadedOhms, highestTotal - loadedOhms];
+  let lowest = lowestTotal - loadedOhms;
+  if (bottom !== null) {
+    const maxVolts = Math.min(limits.maxVoltsPerResistor, bottom.maxVolts);
+    const maxWatts = Math.min(limits.maxWattsPerResistor, bottom.maxWatts);
+    lowest = Math.max(lowest, loadedOhms * (maxInputVolts / maxVolts - 1), (maxInputVolts * loadedOhms) / Math.sqrt(maxWatts * bottom.ohms) - loadedOhms);
+  }
+  return [lowest, highestTotal - loadedOhms];
 }
 
 /** The window of R_t for one bottom: limits and the error bound, widened a hair against rounding. */
-function topWindow(state: SearchState, loadedOhms: number): [number, number] {
-  const [limitLow, limitHigh] = limitWindow(state.plan, loadedOhms);
+function topWindow(state: SearchState, bottom: SearchValue, loadedOhms: number): [number, number] {
+  const [limitLow, limitHigh] = limitWindow(state.plan, bottom, loadedOhms);
   const bound = Math.min(state.shortlist.bound(), state.plan.maxRatioErrorFraction);
   const [errorLow, errorHigh] = topOhmsWithin(state.plan, loadedOhms, bound);
   return [Math.max(limitLow, errorLow) * (1 - 1e-9), Math.min(limitHigh, errorHigh) * (1 + 1e-9)];
+}
+
+/**
+ * The largest value a top string may hold when the total is at most `highestTotal`: its voltage
+ * V·R/R_total and power (V/R_total)²·R within the per-resistor limits.
+ */
+function largestTopOhms(plan: SearchPlan, highestTotal: number): number {
+  const { limits, maxInputVolts } = plan;
+  const perVolt = highestTotal / maxInputVolts;
+  return Math.min(limits.maxVoltsPerResistor * perVolt, limits.maxWattsPerResistor * perVolt * perVolt);
+}
+
+/**
+ * The A-sums worth pairing with one bottom, [first, end): through its canonical split a multiset's
+ * A-half holds its |A| smallest values, so a ≤ (|A|/n)·R_t; its B-half holds |B| values each no
+ * larger than the per-resistor limits allow, so a ≥ R_t − |B|·R_max.
+ */
+function aRange(plan: SearchPlan, halfA: HalfStrings, bSize: number, length: number, low: number, high: number, loadedOhms: number): [number, number] {
+  const largest = largestTopOhms(plan, high + loadedOhms);
+  const first = largest === Infinity ? 0 : firstSumAtOrAbove(halfA.sums, (low - bSize * largest) * (1 - 1e-9));
+  const end = firstSumAtOrAbove(halfA.sums, (high * halfA.size) / length + 1e-9 * high + Number.MIN_VALUE);
+  return [first, end];
 }
 
 /** Whether an error may still rank: admitted by the shortlist and within the search bound. */
@@ -119,10 +154,10 @@ export function searchEqualStrings(state: SearchState, length: number): void {
     for (const step of [1, -1]) {
       let rejected = 0;
       for (let b = step === 1 ? split : split - 1; b >= 0 && b < loaded.length; b += step) {
-        // The limit window [lowest total − R_b', highest total − R_b'] slides down as R_b' grows.
-        const [low, high] = limitWindow(plan, loaded[b]);
+        // The highest allowed R_t, highest total − R_b', falls as R_b' grows; the lowest may move either way.
+        const [low, high] = limitWindow(plan, plan.values[b], loaded[b]);
         if (topOhms > high) { if (step === 1) break; continue; }
-        if (topOhms < low) { if (step === -1) break; continue; }
+        if (topOhms < low) continue;
         if (!mayRank(state, worstCaseError(plan, topOhms, loaded[b]))) break;
         if (offer(state, indices, b, topOhms)) rejected = 0;
         else if (++rejected >= MAX_REJECTIONS_IN_A_ROW) { state.cutWalks++; break; }
@@ -131,14 +166,16 @@ export function searchEqualStrings(state: SearchState, length: number): void {
   });
 }
 
-/** Steps a mixed search of one length would take at most (for the budget), given the bound in plan. */
+/** Steps a mixed search of one length would take at most (for the budget), with the bound as it stands. */
 export function mixedWork(state: SearchState, halfA: HalfStrings, halfB: HalfStrings, length: number): number {
+  const { plan, loaded } = state;
   let work = 0;
   const logB = Math.log2(halfB.count + 1) + 1;
-  for (let b = 0; b < state.loaded.length; b++) {
-    const [low, high] = topWindow(state, state.loaded[b]);
+  for (let bottom = 0; bottom < loaded.length; bottom++) {
+    const [low, high] = topWindow(state, plan.values[bottom], loaded[bottom]);
     if (!(low <= high)) continue;
-    const aCount = firstSumAtOrAbove(halfA.sums, (high * halfA.size) / length + 1e-9 * high + Number.MIN_VALUE);
+    const [first, end] = aRange(plan, halfA, halfB.size, length, low, high, loaded[bottom]);
+    const aCount = Math.max(0, end - first);
     const bCount = firstSumAtOrAbove(halfB.sums, high + Number.MIN_VALUE);
     work += Math.min(aCount + bCount, aCount * logB);
   }
@@ -148,34 +185,43 @@ export function mixedWork(state: SearchState, halfA: HalfStrings, halfB: HalfStr
 /**
  * Every top multiset of `length` values from the two half tables, with every bottom.
  * @param state search state
+ * @param topIndex the plan.values index of each value the half tables number
  * @param halfA multisets of ⌊length/2⌋ values
  * @param halfB multisets of ⌈length/2⌉ values
- * @param topIndex the plan.values index of each value the half tables number
  * @param length n = halfA.size + halfB.size
  */
 export function searchMixedStrings(state: SearchState, topIndex: Int32Array, halfA: HalfStrings, halfB: HalfStrings, length: number): void {
-  const { plan, loaded } = state;
+  const { plan, loaded, shortlist } = state;
   const { sums: aSums, size: aSize } = halfA;
   const { sums: bSums, size: bSize, count: bCount } = halfB;
+  const { targetRatio, maxRatioErrorFraction } = plan;
   const logB = Math.log2(bCount + 1) + 1;
   const indices = new Array<number>(length);
+  const byIndex = (x: number, y: number): number => x - y;
   const tryPair = (ia: number, ib: number, bottom: number, topOhms: number): boolean => {
     for (let i = 0; i < aSize; i++) indices[i] = topIndex[halfA.tuples[ia * aSize + i]];
     for (let i = 0; i < bSize; i++) indices[aSize + i] = topIndex[halfB.tuples[ib * bSize + i]];
-    if (aSize > 0 && bSize > 0 && indices[aSize - 1] > indices[aSize]) indices.sort((x, y) => x - y);
+    if (aSize > 0 && bSize > 0 && indices[aSize - 1] > indices[aSize]) indices.sort(byIndex);
     return offer(state, indices, bottom, topOhms);
   };
   for (let bottom = 0; bottom < loaded.length; bottom++) {
     const loadedOhms = loaded[bottom];
     if (plan.values[bottom].quantity < 1 || !isMonotoneAbout(plan, loadedOhms)) continue;
-    const [low, high] = topWindow(state, loadedOhms);
+    const [low, high] = topWindow(state, plan.values[bottom], loadedOhms);
     if (!(low <= high)) continue;
     const ideal = idealTopOhms(plan, loadedOhms);
-    // Through its canonical split a multiset's A-half holds its smallest values: a ≤ (|A|/n)·R_t.
-    const aEnd = firstSumAtOrAbove(aSums, (high * aSize) / length + 1e-9 * high + Number.MIN_VALUE);
-    const pointerMode = aEnd + firstSumAtOrAbove(bSums, high + Number.MIN_VALUE) < aEnd * logB;
-    let split = pointerMode ? firstSumAtOrAbove(bSums, ideal - aSums[0]) : 0;
-    for (let ia = 0; ia < aEnd; ia++) {
+    // worstCaseError written in u = R_b'/(R_t + R_b'): |u/r₀ − 1| + β·(1 − u), β = I_b·R_b'/(V·r₀).
+    const beta = (plan.inputBiasAmps * loadedOhms) / (plan.maxInputVolts * targetRatio);
+    const mayRankAt = (topOhms: number): boolean => {
+      const u = loadedOhms / (topOhms + loadedOhms);
+      const error = Math.abs(u / targetRatio - 1) + beta * (1 - u);
+      return error <= maxRatioErrorFraction && shortlist.admits(error);
+    };
+    const [aFirst, aEnd] = aRange(plan, halfA, bSize, length, low, high, loadedOhms);
+    if (aFirst >= aEnd) continue;
+    const pointerMode = aEnd - aFirst + firstSumAtOrAbove(bSums, high + Number.MIN_VALUE) < (aEnd - aFirst) * logB;
+    let split = pointerMode ? firstSumAtOrAbove(bSums, ideal - aSums[aFirst]) : 0;
+    for (let ia = aFirst; ia < aEnd; ia++) {
       const a = aSums[ia];
       const rest = ideal - a;
       if (pointerMode) while (split > 0 && bSums[split - 1] >= rest) split--;
@@ -183,15 +229,19 @@ export function searchMixedStrings(state: SearchState, topIndex: Int32Array, hal
       // Walks start at the ideal, or at the window's edge when the limits keep the ideal out.
       const up = rest < low - a ? firstSumAtOrAbove(bSums, low - a) : split;
       const down = rest > high - a ? firstSumAtOrAbove(bSums, high - a + Number.MIN_VALUE) - 1 : split - 1;
-      for (const step of [1, -1]) {
-        let rejected = 0;
-        for (let ib = step === 1 ? up : down; ib >= 0 && ib < bCount; ib += step) {
-          const topOhms = a + bSums[ib];
-          if (topOhms > high || topOhms < low) break;
-          if (!mayRank(state, worstCaseError(plan, topOhms, loadedOhms))) break;
-          if (tryPair(ia, ib, bottom, topOhms)) rejected = 0;
-          else if (++rejected >= MAX_REJECTIONS_IN_A_ROW) { state.cutWalks++; break; }
-        }
+      let rejected = 0;
+      for (let ib = up; ib < bCount; ib++) {
+        const topOhms = a + bSums[ib];
+        if (topOhms > high || !mayRankAt(topOhms)) break;
+        if (tryPair(ia, ib, bottom, topOhms)) rejected = 0;
+        else if (++rejected >= MAX_REJECTIONS_IN_A_ROW) { state.cutWalks++; break; }
+      }
+      rejected = 0;
+      for (let ib = down; ib >= 0; ib--) {
+        const topOhms = a + bSums[ib];
+        if (topOhms < low || !mayRankAt(topOhms)) break;
+        if (tryPair(ia, ib, bottom, topOhms)) rejected = 0;
+        else if (++rejected >= MAX_REJECTIONS_IN_A_ROW) { state.cutWalks++; break; }
       }
     }
   }

@@ -1,5 +1,6 @@
 import { computed, reactive, ref } from 'vue';
 import { findDividers, type DividerCandidate, type FinderRequest, type FinderResult } from '@shared/finder';
+import { dividerNominal } from '@shared/chain';
 import type { ESeriesName } from '@shared/eseries';
 import type { ChannelDefinition, ResistorDefinition } from '@shared/schemas/chain';
 import type { StockPart } from '@/services/stock';
@@ -32,15 +33,23 @@ const lowest = (values: (number | undefined)[]) => {
   return known.length ? Math.min(...known) : undefined;
 };
 
+/** The ratio as the live readouts show it (bottom loaded by the converter input), or none while a value is unusable. */
+function shownRatio({ divider, converter }: ChannelDefinition): number | undefined {
+  try {
+    return Number(dividerNominal(divider, converter.inputResistanceOhm).ratio.toPrecision(4));
+  } catch {
+    return undefined;
+  }
+}
+
 /** Starting constraints taken from the channel as it stands: its range, ratio, string length and derated ratings. */
 function initialForm(channel: ChannelDefinition): FinderForm {
   const { divider, converter, rangeV } = channel;
-  const topOhm = divider.top.reduce((sum, r) => sum + r.nominalOhm, 0);
   const derate = (v: number | undefined) => (v === undefined ? undefined : Number((v * divider.deratingFraction).toPrecision(3)));
   return {
     maxInputV: rangeV.maxV,
     target: 'ratio',
-    targetRatio: Number((divider.bottom.nominalOhm / (topOhm + divider.bottom.nominalOhm)).toPrecision(4)),
+    targetRatio: shownRatio(channel),
     fullScaleV: Number(((converter.fullScaleHz - converter.offsetHz) / converter.gainHzPerV).toPrecision(4)),
     source: 'series',
     series: 'E96',
