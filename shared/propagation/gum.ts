@@ -11,7 +11,7 @@ export interface BudgetRow {
   key: string;
   label: string;
   where: string;
-  /** The input's unit; for a second-order row the two units joined by `·`. */
+  /** The input's unit; for a second-order row their product (a temperature times a per-kelvin coefficient cancels). */
   unit: string;
   /** The input's shape; `product` for a second-order row. */
   distribution: UncertainInput['distribution'] | 'product';
@@ -90,7 +90,7 @@ export function gumPropagation(inputs: readonly UncertainInput[], model: Measure
       // The later input leads the label, so temperature reads first: `operating temperature × R1 TCR`.
       const [a, b] = [inputs[t.second], inputs[t.first]];
       budget.push({
-        key: `${a.key}×${b.key}`, label: `${a.label} × ${b.label}`, where: `${a.where} × ${b.where}`, unit: `${a.unit}·${b.unit}`,
+        key: `${a.key}×${b.key}`, label: `${a.label} × ${b.label}`, where: `${a.where} × ${b.where}`, unit: productUnit(a.unit, b.unit),
         distribution: 'product', halfWidth: a.halfWidth * b.halfWidth, standardUncertainty: uncertainties[t.second] * uncertainties[t.first],
         sensitivity: t.mixedDerivative, contribution: t.contribution, order: 2, inputKeys: [a.key, b.key],
       });
@@ -107,4 +107,13 @@ export function gumPropagation(inputs: readonly UncertainInput[], model: Measure
     interval: { low: estimate - k * combined, high: estimate + k * combined },
     budget,
   };
+}
+
+/** Unit of a product of two inputs: °C (a temperature difference, K) times a unit per K drops the K. */
+function productUnit(a: string, b: string): string {
+  const [temperature, other] = a === '°C' ? [a, b] : [b, a];
+  if (temperature === '°C' && other.endsWith('/K')) return other.slice(0, -2) || '1';
+  if (a === '1') return b;
+  if (b === '1') return a;
+  return `${a}·${b}`;
 }

@@ -70,6 +70,8 @@ describe('GUM budget of a chain centred on its reference temperature', () => {
     const second = temperature.filter((r) => r.order === 2);
     expect(second.map((r) => r.label)).toContain('operating temperature × R bottom TCR');
     expect(second.map((r) => r.label)).toContain('operating temperature × converter gain tempco');
+    expect(second.find((r) => r.label === 'operating temperature × R bottom TCR')?.unit).toBe('1'); // K × 1/K is a pure number (by hand)
+    expect(second.find((r) => r.label === 'operating temperature × converter offset drift')?.unit).toBe('Hz'); // K × Hz/K (by hand)
     for (const row of second) {
       expect(row.contribution).toBeGreaterThan(0);
       expect(row.contribution).toBeCloseTo(Math.abs(row.sensitivity) * row.standardUncertainty, 12); // JCGM 100:2008 5.1.2 Note
