@@ -34,10 +34,12 @@ export class CornerSearch {
     this.cornered = inputs.map((_, i) => i).filter((i) => i !== skip && inputs[i].halfWidth > 0);
   }
 
+  /** Number of cornered inputs n (2^n corners). */
   get size(): number {
     return this.cornered.length;
   }
 
+  /** f at the current x, counted; throws rather than let a NaN pass for an extreme. */
   evaluate(): number {
     this.evaluated++;
     const y = this.model(this.x);
