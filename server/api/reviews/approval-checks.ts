@@ -37,10 +37,15 @@ export async function failingChecks(dataSource: DataSource, revision: Revision):
   }
   for (const channel of revision.channels) {
     const overview = await calibrationOverview(dataSource, revision.id, channel.key);
-    for (const board of overview.boards.filter((b) => b.within === false)) {
+    for (const board of overview.boards) {
+      // Judged by the guarded acceptance rule the review shows: a board in a guard band is not shown to be inside either.
+      const { decision } = board;
+      if (decision === null || decision === 'accept') continue;
       failing.push({
         key: `board:${board.boardId}:${channel.key}`,
-        label: `Board ${board.serialNumber}, ${overview.channelName}: outside the design's spread`,
+        label: decision === 'reject'
+          ? `Board ${board.serialNumber}, ${overview.channelName}: outside the design's spread (rejected)`
+          : `Board ${board.serialNumber}, ${overview.channelName}: not shown inside the design's spread (undecided, in a guard band)`,
       });
     }
   }
