@@ -70,8 +70,8 @@ const smallChains: Record<string, ReturnType<typeof chain>> = {
     reconstruction: { mode: 'calibrated', temperatureC: 40, gainUncertaintyFraction: 1e-4, offsetUncertaintyV: 0, coverageFactor: 2 },
     environment: { minC: -20, maxC: 85, referenceC: 20 },
   }),
-  'calibrated cold, self-heated, six top resistors': chain({
-    ...eightTop, divider: { ...eightTop.divider, top: eightTop.divider.top.slice(0, 6).map((r) => ({ ...r, thermalResistanceKPerW: 400 })) },
+  'calibrated cold, self-heated, five top resistors': chain({
+    ...eightTop, divider: { ...eightTop.divider, top: eightTop.divider.top.slice(0, 5).map((r) => ({ ...r, thermalResistanceKPerW: 400 })) },
     converter: { ...eightTop.converter, offsetErrorHz: 50 },
     reconstruction: { mode: 'calibrated', temperatureC: 0, gainUncertaintyFraction: 0, offsetUncertaintyV: 0, coverageFactor: 2 },
   }),
@@ -88,7 +88,7 @@ describe('worst case against every corner', () => {
     expect(engine.boundedInputs).toBe(truth.count);
     expect(engine.maximum).toBeCloseTo(truth.maximum, 9); // exhaustive enumeration over all 2^22 corners (in this test)
     expect(engine.minimum).toBeCloseTo(truth.minimum, 9); // exhaustive enumeration over all 2^22 corners (in this test)
-  });
+  }, 120_000);
 
   for (const [name, channel] of Object.entries(smallChains)) {
     it(`equals the extreme corner at every voltage: ${name}`, () => {
@@ -101,7 +101,7 @@ describe('worst case against every corner', () => {
         expect(engine[g].maximum).toBeCloseTo(truth.maximum, 9); // exhaustive enumeration over all 2^n corners (in this test)
         expect(engine[g].minimum).toBeCloseTo(truth.minimum, 9); // exhaustive enumeration over all 2^n corners (in this test)
       }
-    });
+    }, 120_000);
   }
 });
 
