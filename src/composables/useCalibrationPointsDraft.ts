@@ -101,11 +101,16 @@ export function useCalibrationPointsDraft(stored: Ref<StoredPoint[]>) {
     rows.value = rows.value.filter((r) => r.key !== row.key);
   }
 
+  /** Lays kept rows (a person's unsaved table) over the points now loaded; they are all unsaved again. */
+  function restore(kept: DraftPoint[]): void {
+    rows.value = kept.map((row) => ({ ...row, key: nextKey++, id: null }));
+  }
+
   /** The request body, or null while any row has a problem. */
   function body(): PointWrite[] | null {
     const bodies = rows.value.map((row) => checked.value.get(row.key)?.body ?? null);
     return bodies.every((b) => b !== null) ? (bodies as PointWrite[]) : null;
   }
 
-  return { rows, errorsOf, invalidCount, dirty, add, remove, reset, body };
+  return { rows, errorsOf, invalidCount, dirty, add, remove, reset, restore, body };
 }

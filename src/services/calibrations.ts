@@ -29,10 +29,10 @@ function uploadForm(file: File, mapping?: CsvMapping): FormData {
 export const calibrationsApi = {
   get: (id: number) => http.get<{ session: SessionDetail }>(path(id)).then((r) => r.session),
   update: (id: number, patch: SessionPatchBody) => http.patch<{ session: SessionDetail }>(path(id), patch).then((r) => r.session),
-  replacePoints: (id: number, points: PointWrite[]) =>
-    http.put<{ session: SessionDetail }>(`${path(id)}/points`, { points }).then((r) => r.session),
-  setExclusion: (id: number, pointId: number, excluded: boolean, reason: string) =>
-    http.patch<{ session: SessionDetail }>(`${path(id)}/points/${encodeURIComponent(pointId)}`, { excluded, reason }).then((r) => r.session),
+  replacePoints: (id: number, points: PointWrite[], baseVersion: number) =>
+    http.put<{ session: SessionDetail }>(`${path(id)}/points`, { points, baseVersion }).then((r) => r.session),
+  setExclusion: (id: number, pointId: number, excluded: boolean, reason: string, baseVersion: number) =>
+    http.patch<{ session: SessionDetail }>(`${path(id)}/points/${encodeURIComponent(pointId)}`, { excluded, reason, baseVersion }).then((r) => r.session),
   complete: (id: number) => http.post<{ session: SessionDetail }>(`${path(id)}/complete`).then((r) => r.session),
   /** Without a mapping the server answers with the header and its suggested mapping only. */
   previewImport: (id: number, file: File, mapping?: CsvMapping) =>

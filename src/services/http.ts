@@ -24,7 +24,7 @@ async function readError(response: Response): Promise<ApiError> {
   const fallback = `The server answered ${response.status} ${response.statusText}`.trim();
   try {
     const body = (await response.json()) as Partial<ErrorBody>;
-    return new ApiError(response.status, body.error || fallback, body.fields);
+    return new ApiError(response.status, body.error || fallback, body.fields, body.conflict);
   } catch {
     return new ApiError(response.status, fallback);
   }

@@ -12,7 +12,8 @@ const path = (id: number) => `/api/revisions/${encodeURIComponent(id)}`;
 
 export const marginApi = {
   inputs: (revisionId: number) => http.get<MarginInputsView>(`${path(revisionId)}/margin-inputs`),
-  saveInputs: (revisionId: number, inputs: MarginInputsBody) => http.put<MarginInputsView>(`${path(revisionId)}/margin-inputs`, inputs),
+  saveInputs: (revisionId: number, inputs: MarginInputsBody, baseVersion: number) =>
+    http.put<MarginInputsView>(`${path(revisionId)}/margin-inputs`, { ...inputs, baseVersion }),
   start: (revisionId: number, request: MarginStudyStart) =>
     http.post<{ run: MarginRun }>(`${path(revisionId)}/margin-studies`, request).then((r) => r.run),
   list: (revisionId: number) => http.get<{ items: MarginRun[] }>(`${path(revisionId)}/margin-studies`).then((r) => r.items),

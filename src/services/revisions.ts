@@ -7,6 +7,8 @@ export type { HistoryEvent, RevisionChannel, RevisionDetail } from '@shared/sche
 export interface ChannelsBody {
   channels: { key: string; definition: ChannelDefinition }[];
   note?: string;
+  /** The revision version the channels were edited from. */
+  baseVersion: number;
 }
 
 const path = (id: number) => `/api/revisions/${encodeURIComponent(id)}`;

@@ -30,9 +30,10 @@ export const useCalibrationStore = defineStore('calibration', () => {
   }
 
   const update = async (patch: SessionPatchBody) => adopt(await calibrationsApi.update(id(), patch));
-  const replacePoints = async (points: PointWrite[]) => adopt(await calibrationsApi.replacePoints(id(), points));
+  // Both name the points version on screen, so a change someone else saved meanwhile is not overwritten.
+  const replacePoints = async (points: PointWrite[]) => adopt(await calibrationsApi.replacePoints(id(), points, session.value!.pointsVersion));
   const setExclusion = async (pointId: number, excluded: boolean, reason: string) =>
-    adopt(await calibrationsApi.setExclusion(id(), pointId, excluded, reason));
+    adopt(await calibrationsApi.setExclusion(id(), pointId, excluded, reason, session.value!.pointsVersion));
   const markComplete = async () => adopt(await calibrationsApi.complete(id()));
 
   return { session, complete, channelName, open, adopt, update, replacePoints, setExclusion, markComplete };

@@ -43,7 +43,7 @@ export const useMarginStore = defineStore('margin', () => {
   /** Sends the draft; throws the ApiError (400 with fields, 409 not a draft) for the page to show. */
   async function save(body: MarginInputsBody): Promise<void> {
     if (revisionId.value === null) throw new Error('no revision is open');
-    adopt(await marginApi.saveInputs(revisionId.value, body));
+    adopt(await marginApi.saveInputs(revisionId.value, body, view.value?.version ?? 0));
     runs.value = await marginApi.list(revisionId.value);
     if (run.value) run.value = { ...run.value, current: runs.value.find((r) => r.id === run.value?.id)?.current };
   }

@@ -57,7 +57,7 @@ export const useRevisionStore = defineStore('revision', () => {
 
   /** Checks the draft with the request schema; returns false and fills fieldErrors when it fails. */
   function check(): boolean {
-    const result = revisionChannelsSchema.safeParse({ channels: channels.value, note: note.value || undefined });
+    const result = revisionChannelsSchema.safeParse({ channels: channels.value, note: note.value || undefined, baseVersion: revision.value?.version ?? 0 });
     if (result.success) {
       fieldErrors.value = {};
       return true;
@@ -68,7 +68,7 @@ export const useRevisionStore = defineStore('revision', () => {
     return false;
   }
 
-  /** Sends the channels; throws the ApiError (409 not a draft, 400 with fields) for the page to report. */
+  /** Sends the channels with the version they were edited from; throws the ApiError (409 stale or not a draft, 400 with fields). */
   async function save(): Promise<RevisionDetail> {
     if (!revision.value) throw new Error('no revision is open');
     saving.value = true;
@@ -76,6 +76,7 @@ export const useRevisionStore = defineStore('revision', () => {
       const next = await revisionsApi.saveChannels(revision.value.id, {
         channels: channels.value,
         note: note.value.trim() || undefined,
+        baseVersion: revision.value.version,
       });
       adopt(next);
       return next;
@@ -87,6 +88,15 @@ export const useRevisionStore = defineStore('revision', () => {
   function discard(): void {
     if (revision.value) adopt(revision.value);
   }
+
+  /** Lays channels and a note (a person's edits over the version now loaded) into the draft; the next save is based on that version. */
+  function reapply(next: { channels: DraftChannel[]; note: string }): void {
+    channels.value = next.channels.map((c) => ({ key: c.key, definition: normalise(c.definition) }));
+    note.value = next.note;
+  }
+
+  /** The channels as last loaded or saved (schema defaults filled, like the draft). */
+  const savedChannels = (): DraftChannel[] => JSON.parse(saved.value || '[]') as DraftChannel[];
 
   /** Messages for one channel, with the `channels.N.definition.` prefix taken off. */
   function channelErrors(index: number): FieldMessages {
@@ -100,6 +110,6 @@ export const useRevisionStore = defineStore('revision', () => {
 
   return {
     revision, channels, note, fieldErrors, loading, saving, editable, dirty,
-    load, check, save, discard, channelErrors,
+    load, check, save, discard, reapply, savedChannels, channelErrors,
   };
 });

@@ -1,0 +1,97 @@
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import { chromium, type BrowserContext, type Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { openBrowserRig, type BrowserRig } from '../helpers/browser.js';
+import { ARTIFACTS_DIR } from '../helpers/built-client.js';
+import { hashPassword } from '../../server/common/passwords.js';
+import { Channel } from '../../server/entities/Channel.js';
+import { User } from '../../server/entities/User.js';
+
+/** A second designer (invented) working on the same draft as the demo designer. */
+const SECOND = { email: 'designer-two@example.test', displayName: 'Pell Arrowby', password: 'tallyvolt-designer-two' };
+
+async function signIn(page: Page, baseUrl: string, email: string, password: string): Promise<void> {
+  await page.goto(`${baseUrl}/sign-in`);
+  await page.getByLabel('E-mail').fill(email);
+  await page.getByLabel('Password').fill(password);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await page.waitForURL((url) => url.pathname === '/');
+}
+
+describe('two designers saving the same draft revision', () => {
+  let rig: BrowserRig;
+  let second: BrowserContext;
+  let profile = '';
+  beforeAll(async () => {
+    rig = await openBrowserRig();
+    const users = rig.app.dataSource.getRepository(User);
+    await users.save(users.create({ email: SECOND.email, displayName: SECOND.displayName, role: 'designer', passwordHash: await hashPassword(SECOND.password), active: true }));
+    profile = fs.mkdtempSync(path.join(os.tmpdir(), 'tallyvolt-chromium-second-'));
+    second = await chromium.launchPersistentContext(profile, {
+      executablePath: '/usr/bin/chromium', headless: true, viewport: { width: 1280, height: 860 },
+      args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
+    });
+  }, 120_000);
+  afterAll(async () => {
+    await second?.close();
+    if (profile) fs.rmSync(profile, { recursive: true, force: true });
+    await rig?.close();
+  });
+
+  it('refuses the later save, names who saved first, and keeps the later editor\'s change to put back over theirs', async () => {
+    const first = rig.page;
+    const other = second.pages()[0] ?? (await second.newPage());
+    await signIn(first, rig.baseUrl, 'designer@example.test', 'tallyvolt-designer');
+    await signIn(other, rig.baseUrl, SECOND.email, SECOND.password);
+
+    const designer = await rig.app.signIn('designer@example.test', 'tallyvolt-designer');
+    const revisionId = (await designer.post('/api/designs').send({ name: 'Shared draft' })).body.design.revisions[0].id;
+    const url = `${rig.baseUrl}/revisions/${revisionId}`;
+    await first.goto(url);
+    await other.goto(url);
+    const bottom = (page: Page, channel: string) => page.getByRole('tabpanel', { name: channel }).getByLabel('Bottom resistor resistance');
+    // The editor loads its fonts and chunks first: give the first render time.
+    await expect.poll(() => bottom(first, 'Pack side').isVisible(), { timeout: 20_000 }).toBe(true);
+    await expect.poll(() => bottom(other, 'Pack side').isVisible(), { timeout: 20_000 }).toBe(true);
+
+    // The first designer changes the pack side and saves.
+    await bottom(first, 'Pack side').fill('33.2k');
+    await bottom(first, 'Pack side').press('Tab');
+    await first.getByRole('button', { name: 'Save', exact: true }).click();
+    await expect.poll(() => first.getByText('All changes saved').isVisible()).toBe(true);
+
+    // The second, still on the version both loaded, changes the link side and saves: refused, with who saved first.
+    await other.getByRole('tab', { name: /Link side/ }).click();
+    await bottom(other, 'Link side').fill('30.1k');
+    await bottom(other, 'Link side').press('Tab');
+    await other.getByRole('button', { name: 'Save', exact: true }).click();
+    const notice = other.getByRole('alert').filter({ hasText: 'someone else saved first' });
+    await expect.poll(() => notice.isVisible()).toBe(true);
+    expect(await notice.innerText()).toMatch(/Tamsin Fenwright saved this revision's channels at .* while you were editing/);
+    expect(await bottom(other, 'Link side').inputValue()).toBe('30.1k'); // their own edit is still on screen
+    await other.screenshot({ path: path.join(ARTIFACTS_DIR, 'conflict-notice.png'), fullPage: true });
+
+    // Loading their version shows it, and lists the second designer's own unsaved value beside the saved one.
+    await other.getByRole('button', { name: 'Load their version' }).click();
+    const kept = other.getByRole('region', { name: /Your unsaved channel values/ });
+    await expect.poll(() => kept.isVisible()).toBe(true);
+    expect(await kept.getByRole('row', { name: /Link side · Divider, bottom resistor/ }).innerText()).toMatch(/30100 Ω\s+32400 Ω/);
+    await other.getByRole('tab', { name: /Pack side/ }).click();
+    await expect.poll(() => bottom(other, 'Pack side').inputValue()).toBe('33.2k'); // the first designer's change is loaded
+    await other.screenshot({ path: path.join(ARTIFACTS_DIR, 'conflict-kept.png'), fullPage: true });
+
+    // Putting it back re-applies only the second designer's change over the saved version; saving now succeeds.
+    await other.getByRole('button', { name: 'Put my changes back' }).click();
+    expect(await bottom(other, 'Pack side').inputValue()).toBe('33.2k');
+    await other.getByRole('tab', { name: /Link side/ }).click();
+    await expect.poll(() => bottom(other, 'Link side').inputValue()).toBe('30.1k');
+    await other.getByRole('button', { name: 'Save', exact: true }).click();
+    await expect.poll(() => other.getByText('All changes saved').isVisible()).toBe(true);
+
+    const stored = await rig.app.dataSource.getRepository(Channel).findBy({ revisionId });
+    expect(stored.find((c) => c.key === 'pack')!.definition.divider.bottom.nominalOhm).toBe(33_200); // the first designer's value
+    expect(stored.find((c) => c.key === 'link')!.definition.divider.bottom.nominalOhm).toBe(30_100); // the second designer's value
+  }, 180_000);
+});
