@@ -1,7 +1,8 @@
 import { checkProbability, type ProbabilityCheck } from '../../../shared/precharge/index.js';
 import type { MarginCriterion, MarginStudyResult } from '../../../shared/schemas/margin.js';
 
-export const prob = (p: number) => (p === 0 ? '0' : p < 1e-3 ? p.toExponential(1) : p.toPrecision(2));
+/** A probability as a percentage to two significant digits: 0.003 → "0.3 %", 3·10⁻⁶ → "0.0003 %". */
+export const prob = (p: number) => (p === 0 ? '0 %' : `${Number((p * 100).toPrecision(2))} %`);
 
 /** What the shared reading-error draws are, in the words of the chosen mode. */
 export function drawsWord(mode: MarginStudyResult['model']['readingErrors']['mode']): string {
@@ -10,13 +11,12 @@ export function drawsWord(mode: MarginStudyResult['model']['readingErrors']['mod
 
 /** "k of N trials" with the 95 % bound the count supports, and why a criterion cannot be shown. */
 export function countSentence(what: string, c: ProbabilityCheck, allowed: number, draws: string): string {
-  const counted = `${what} in ${c.events} of ${c.trials} trials`;
-  const shared = c.independentTrials < c.trials ? `, counted as ${c.independentTrials} independent samples because the trials share ${c.independentTrials} ${draws}` : '';
-  if (c.outcome === 'not-met') return `${counted}${shared}.`;
-  if (c.outcome === 'met') return `${counted}: at most ${prob(c.upperBound)} at 95 % confidence${shared}.`;
-  const more = c.independentTrials < c.trials ? `more ${draws}` : 'more trials';
-  return `${counted}, but that cannot show ≤ ${prob(allowed)}: at 95 % confidence it is only known to be ≤ ${prob(c.upperBound)}${shared}`
-    + ` (these runs can show nothing below ${prob(c.smallestShowable)}); run ${more}.`;
+  const counted = `${what} in ${c.events} of ${c.trials} trials.`;
+  if (c.outcome === 'not-met') return counted;
+  const boardLimited = c.independentTrials < c.trials;
+  const shared = boardLimited ? ` (the trials share ${c.independentTrials} ${draws}, so they count as ${c.independentTrials} samples)` : '';
+  if (c.outcome === 'met') return `${counted} At 95 % confidence that shows ≤ ${prob(c.upperBound)}${shared}.`;
+  return `${counted} At 95 % confidence that shows only ≤ ${prob(c.upperBound)}${shared}, not ≤ ${prob(allowed)}; run more ${boardLimited ? draws : 'trials'}.`;
 }
 
 /**
