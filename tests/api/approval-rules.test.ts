@@ -171,6 +171,11 @@ describe('who may approve a revision, and what an approval against failing check
     const approval = history.find((e) => e.action === 'revision.approve')!;
     expect(approval.detail).toEqual({ from: 'in_review', to: 'approved', comment: 'Approved for the bench.', override: { justification, failing: check.failing } });
 
+    const mail = (await t.outbox()).filter((m) => m.to.includes('designer@example.test')).at(-1)!;
+    expect(mail.subject).toBe('Approved: Fails its checks, revision A');
+    expect(mail.text).toContain('has approved with an override');
+    expect(mail.text).toContain(`Justification: ${justification}`);
+
     const { report } = (await lead.get(`/api/revisions/${revisionId}/report`)).body;
     const signed = report.signOff.at(-1);
     expect(signed.label).toBe('Approved with an override');

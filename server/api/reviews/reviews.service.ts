@@ -14,7 +14,7 @@ import { latestDoneRun, currentRunHash } from '../margin/margin.service.js';
 import { getRevision } from '../revisions/revisions.service.js';
 import { decisionMessage, submittedMessage } from './reviews.mail.js';
 import { isoTime } from '../../common/iso-time.js';
-import type { ApprovalCheck, MailOutcome } from '../../../shared/schemas/review-views.js';
+import type { ApprovalCheck, FailingCheck, MailOutcome } from '../../../shared/schemas/review-views.js';
 import type { MarginVerdict } from '../../../shared/schemas/margin.js';
 
 /** Audit actions of the review workflow, oldest first in a revision's history. */
@@ -126,14 +126,15 @@ export async function decideReview(
   const { comment } = body;
   const before = await getRevision(dataSource, revisionId);
   // Sending one's own work back is harmless (it only returns it to draft), so only approval is barred to its authors.
+  const extra = decision === 'approve' && before.state === 'in_review' ? await approvalOverride(dataSource, actor, before, body as ApproveBody) : {};
+  const override = extra.override as { justification: string; failing: FailingCheck[] } | undefined;
   const revision = decision === 'approve'
-    ? await transition(dataSource, actor, revisionId, ['in_review'], 'approved', 'revision.approve', comment,
-      before.state === 'in_review' ? await approvalOverride(dataSource, actor, before, body as ApproveBody) : {})
+    ? await transition(dataSource, actor, revisionId, ['in_review'], 'approved', 'revision.approve', comment, extra)
     : await transition(dataSource, actor, revisionId, ['in_review'], 'changes_requested', 'revision.request-changes', comment);
   const recipients = await dataSource.getRepository(User).find({ where: { id: In([revision.createdById, revision.design.ownerId]), active: true }, order: { id: 'ASC' } });
   const link = reviewLink(baseUrl, revisionId);
   const mail = await sendAll(dataSource, mailer, actor, revisionId,
-    recipients.map((to) => decisionMessage(to.email, revision, decision, actor.displayName, comment, link)));
+    recipients.map((to) => decisionMessage(to.email, revision, decision, actor.displayName, comment, link, override)));
   return { revision, mail };
 }
 
