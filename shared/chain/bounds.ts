@@ -39,7 +39,7 @@ export const BOUNDS = {
   /** 100 kV: the top of any divider this product is for. */
   rangeMax: b(0, 1e5, 'V', '100 kV', true),
   rangeMin: b(0, 1e5, 'V', '100 kV'),
-  /** 1 mHz/V: below it one count is worth more volts than any range holds. */
+  /** 1 mHz/V: below it a single count of a 1 s gate is worth kilovolts. */
   converterGain: { min: 1e-3, max: 1e9, unit: 'Hz/V', maxText: '1 GHz/V', minText: '1 mHz/V', positive: true },
   frequency: b(0, 1e9, 'Hz', '1 GHz'),
   fullScale: { min: 1, max: 1e9, unit: 'Hz', maxText: '1 GHz', positive: true },
@@ -47,7 +47,7 @@ export const BOUNDS = {
   gainTempco: b(0, 1000, 'ppm/K', '1000 ppm/K'),
   offsetDrift: b(0, 1e6, 'Hz/K', '1 MHz/K'),
   nonlinearity: b(0, 10, '% FS', '10 % FS'),
-  /** Converter inputs from a few kΩ (buffered op-amp stages) up to 1 PΩ (electrometer grade). */
+  /** From a shunt-like 1 mΩ input up to 1 PΩ (electrometer grade). */
   inputResistance: { min: 1e-3, max: 1e15, unit: 'Ω', maxText: '1 PΩ', minText: '1 mΩ', positive: true },
   inputResistanceTolerance: b(0, 50, '%', '50 %'),
   /** As for a resistor's TCR: R_in(1 + αΔT) stays > 0 across the whole temperature range. */
@@ -59,7 +59,7 @@ export const BOUNDS = {
   clock: { min: 1, max: 1e10, unit: 'Hz', maxText: '10 GHz', positive: true },
   /** 10 %: an uncalibrated RC oscillator at its worst. */
   clockTolerance: b(0, 1e5, 'ppm', '100 000 ppm'),
-  /** 1 µs: a shorter gate holds less than one count of any converter here. */
+  /** 1 µs: shorter than any gate a timer peripheral opens in practice. */
   gate: { min: 1e-6, max: 1e3, unit: 's', maxText: '1000 s', minText: '1 µs', positive: true },
   calibrationGainUncertainty: b(0, 0.5, '', '0.5'),
   calibrationOffsetUncertainty: b(0, 1e5, 'V', '100 kV'),
