@@ -17,6 +17,9 @@ export const csvUpload: RequestHandler = (req, res, next) => {
       if (err.code === 'LIMIT_FILE_SIZE') return next(new HttpError(413, `file is larger than ${MAX_UPLOAD_BYTES / 1024} KiB`));
       return next(new BadRequestError(`upload refused: ${err.message}`, { file: err.message }));
     }
-    next(err);
+    // Anything else multer passes on comes from reading the multipart body: a request cut off before its
+    // closing boundary, a missing boundary or a malformed part header. The sender can fix all of them.
+    const reason = err instanceof Error ? err.message : String(err);
+    next(new BadRequestError(`upload is incomplete or malformed (${reason}); send the whole file again`, { file: reason }));
   });
 };

@@ -9,6 +9,8 @@ export interface StockPreview {
   problems: RowProblem[];
   validCount: number;
   invalidCount: number;
+  /** How many more parts the stock takes (STOCK_PART_LIMIT less those stored). */
+  room: number;
 }
 
 export interface StockImportOutcome {

@@ -4,6 +4,9 @@ import { listQuerySchema } from './common.js';
 const finite = (name: string) =>
   z.number({ error: `${name} must be a number` }).refine(Number.isFinite, { error: `${name} must be finite` });
 
+/** The most parts the stock holds; an import or a new part past it is refused, so lists and downloads stay bounded. */
+export const STOCK_PART_LIMIT = 10_000;
+
 /** One stock part as the API and the CSV import accept it (resistance already parsed to ohms). */
 export const stockPartSchema = z.strictObject({
   ohms: finite('ohms').refine((v) => v > 0, { error: 'ohms must be > 0' }).refine((v) => v <= 1e12, { error: 'ohms must be ≤ 1 TΩ' }),

@@ -1,4 +1,4 @@
-export { parseQuantity, parseEngineering } from './parse-engineering.js';
+export { parseQuantity, parseEngineering, parseDecimal } from './parse-engineering.js';
 export type { ParsedQuantity } from './parse-engineering.js';
 export { formatEng } from './format-engineering.js';
 export type { FormatEngOptions } from './format-engineering.js';

@@ -53,6 +53,23 @@ export function parseQuantity(text: string): ParsedQuantity {
   return { value, unit };
 }
 
+const DECIMAL_PATTERN = /^[+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?$/;
+
+/**
+ * Parse a plain decimal number (digits, an optional point and exponent), as a CSV quantity is written.
+ * JavaScript's Number() also reads 0x10, 0b11, 0o17 and Infinity; a stock file means none of them.
+ * @param text e.g. '16', '-2.5', '.5', '2e2' (surrounding spaces are ignored)
+ * @throws Error naming the text when it is not decimal notation or overflows a double
+ * @example parseDecimal('010') // 10
+ */
+export function parseDecimal(text: string): number {
+  const trimmed = typeof text === 'string' ? text.trim() : '';
+  if (!DECIMAL_PATTERN.test(trimmed)) throw new Error(`"${text}" is not a decimal number`);
+  const value = Number(trimmed);
+  if (!Number.isFinite(value)) throw new Error(`"${text}" is out of range`);
+  return value;
+}
+
 /**
  * Parse a value and require its unit (if written) to be the expected one.
  * @param text e.g. '4.7 kΩ', '4K7', '4.7k'

@@ -54,7 +54,7 @@ describe('stock', () => {
     expect(preview.body.invalidCount).toBe(4);
     expect(preview.body.problems).toEqual([
       { row: 3, column: 'value', problem: expect.stringContaining('4K7K') },
-      { row: 4, column: 'tolerance_pct', problem: '"abc" is not a number' },
+      { row: 4, column: 'tolerance_pct', problem: '"abc" is not a decimal number' },
       { row: 5, column: 'quantity', problem: 'quantity must be ≥ 0' },
       { row: 6, column: 'tolerance_pct', problem: 'tolerancePct must be in (0, 50] %' },
     ]);
@@ -95,6 +95,37 @@ describe('stock', () => {
     const none = await designer.post('/api/stock/import?mode=all').field('x', '1');
     expect(none.status).toBe(400);
     expect(none.body.fields.file).toBe('is required');
+  });
+
+  it('answers a cut-off or malformed upload with 400 and a message, and stores nothing', async () => {
+    const designer = await t.signIn('designer@example.test', 'tallyvolt-designer');
+    const before = await count();
+    const cutOff = '--cut\r\nContent-Disposition: form-data; name="file"; filename="s.csv"\r\nContent-Type: text/csv\r\n\r\nvalue,tolerance_pct\r\n1M,1';
+    const res = await designer.post('/api/stock/import?mode=all').set('Content-Type', 'multipart/form-data; boundary=cut').send(cutOff);
+    expect(res.status).toBe(400);
+    expect(res.body.error).toMatch(/upload .*(incomplete|cut off)/);
+    expect(res.body.fields.file).toBeTruthy();
+    const noBoundary = await designer.post('/api/stock/import?mode=all').set('Content-Type', 'multipart/form-data').send('value\r\n1M');
+    expect(noBoundary.status).toBe(400);
+    expect(noBoundary.body.fields.file).toBeTruthy();
+    expect(await count()).toBe(before);
+  });
+
+  it.each(['0x10', '0b11', '0o17', '1_000', 'Infinity', '١٢'])('reads only decimal numbers: quantity "%s" is refused', async (text) => {
+    const designer = await t.signIn('designer@example.test', 'tallyvolt-designer');
+    const preview = await designer.post('/api/stock/import?mode=preview').attach('file', Buffer.from(`value,tolerance_pct,quantity,rated_voltage_v\n1M,1,${text},200\n2M,${text},3,1e2`), 'hex.csv');
+    expect(preview.status).toBe(200);
+    expect(preview.body.validCount).toBe(0);
+    expect(preview.body.problems).toEqual([
+      { row: 2, column: 'quantity', problem: `"${text}" is not a decimal number` },
+      { row: 3, column: 'tolerance_pct', problem: `"${text}" is not a decimal number` },
+    ]);
+  });
+
+  it('reads decimal quantities and values as written, with exponents', async () => {
+    const designer = await t.signIn('designer@example.test', 'tallyvolt-designer');
+    const preview = await designer.post('/api/stock/import?mode=preview').attach('file', Buffer.from('value,tolerance_pct,quantity,rated_voltage_v\n10,0.5,010,2e2\n'), 'dec.csv');
+    expect(preview.body.rows[0].part).toMatchObject({ ohms: 10, tolerancePct: 0.5, quantity: 10, ratedVoltageV: 200 }); // decimal reading, leading zero is not octal
   });
 
   it('lets testers and leads read but not write the stock', async () => {

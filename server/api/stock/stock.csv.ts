@@ -1,7 +1,7 @@
-import Papa from 'papaparse';
-import { formatEng, parseEngineering } from '../../../shared/units/index.js';
+import { formatEng, parseDecimal, parseEngineering } from '../../../shared/units/index.js';
 import { STOCK_CSV_COLUMNS, STOCK_CSV_REQUIRED, stockPartSchema, type StockPartBody } from '../../../shared/schemas/stock.js';
 import type { CsvTable } from '../../common/csv.js';
+import type { CsvValue } from '../../common/csv-write.js';
 import type { RowProblem } from '../../../shared/schemas/common.js';
 import { BadRequestError } from '../../common/errors.js';
 import type { StockPart } from '../../entities/StockPart.js';
@@ -19,7 +19,7 @@ const NUMERIC: Record<string, keyof StockPartBody> = {
 const FIELD_TO_COLUMN = Object.fromEntries([...Object.entries(NUMERIC).map(([c, f]) => [f, c]), ['ohms', 'value'], ['package', 'package'], ['note', 'note']]);
 
 /** Checks a stock CSV row by row; every problem names its row (file line) and column. */
-export function previewStockCsv(table: CsvTable): StockPreview {
+export function previewStockCsv(table: CsvTable): Omit<StockPreview, 'room'> {
   const missing = STOCK_CSV_REQUIRED.filter((c) => !table.headers.includes(c));
   if (missing.length) throw new BadRequestError(`missing column${missing.length > 1 ? 's' : ''}: ${missing.join(', ')}`, { file: `missing ${missing.join(', ')}` });
   const unknown = table.headers.filter((h) => !(STOCK_CSV_COLUMNS as readonly string[]).includes(h));
@@ -37,9 +37,11 @@ export function previewStockCsv(table: CsvTable): StockPreview {
     for (const [column, field] of Object.entries(NUMERIC)) {
       const text = cells[column];
       if (text === undefined || text === '') continue;
-      const n = Number(text);
-      if (!Number.isFinite(n)) problems.push({ row: line, column, problem: `"${text}" is not a number` });
-      else raw[field] = n;
+      try {
+        raw[field] = parseDecimal(text);
+      } catch (err) {
+        problems.push({ row: line, column, problem: (err as Error).message });
+      }
     }
     if (cells.package !== undefined) raw.package = cells.package;
     if (cells.note !== undefined) raw.note = cells.note;
@@ -55,13 +57,10 @@ export function previewStockCsv(table: CsvTable): StockPreview {
   return { rows, problems, validCount, invalidCount: rows.length - validCount };
 }
 
-/** The stock as CSV, in the same columns the import takes; values in engineering notation. */
-export function stockToCsv(parts: StockPart[]): string {
-  return Papa.unparse({
-    fields: [...STOCK_CSV_COLUMNS],
-    data: parts.map((p) => [
-      formatEng(p.ohms, '', 4).replace(/\s/g, ''), p.tolerancePct, p.tcrPpmPerK, p.voltageCoefficientPpmPerV,
-      p.ratedVoltageV ?? '', p.ratedPowerW ?? '', p.package, p.quantity, p.note,
-    ]),
-  });
+/** One part as a row of the stock CSV, in the same columns the import takes; the value in engineering notation. */
+export function stockCsvRow(p: StockPart): CsvValue[] {
+  return [
+    formatEng(p.ohms, '', 4).replace(/\s/g, ''), p.tolerancePct, p.tcrPpmPerK, p.voltageCoefficientPpmPerV,
+    p.ratedVoltageV, p.ratedPowerW, p.package, p.quantity, p.note,
+  ];
 }

@@ -1,15 +1,21 @@
 import { z } from 'zod';
 import { idParamSchema } from '../../../shared/schemas/common.js';
-import { stockListQuerySchema, stockPartPatchSchema, stockPartSchema } from '../../../shared/schemas/stock.js';
+import { STOCK_CSV_COLUMNS, stockListQuerySchema, stockPartPatchSchema, stockPartSchema } from '../../../shared/schemas/stock.js';
 import { readCsv } from '../../common/csv.js';
+import { streamCsv, type CsvValue } from '../../common/csv-write.js';
+import type { StockPart } from '../../entities/StockPart.js';
 import type { AppDeps } from '../../common/deps.js';
 import { defineRoute, type RouteSpec } from '../../common/routes.js';
 import { csvUpload } from '../../common/upload.js';
-import { previewStockCsv, stockToCsv } from './stock.csv.js';
-import { allStock, createStockPart, deleteStockPart, importStock, listStock, updateStockPart } from './stock.service.js';
-import type { StockImportOutcome } from '../../../shared/schemas/stock-views.js';
+import { previewStockCsv, stockCsvRow } from './stock.csv.js';
+import { createStockPart, deleteStockPart, importStock, listStock, stockInPages, stockRoom, updateStockPart } from './stock.service.js';
+import type { StockImportOutcome, StockPreview } from '../../../shared/schemas/stock-views.js';
 
 const WRITERS = ['designer', 'admin'] as const;
+
+async function* rowsOf(pages: AsyncIterable<StockPart[]>): AsyncGenerator<CsvValue[][]> {
+  for await (const page of pages) yield page.map(stockCsvRow);
+}
 const READERS = ['designer', 'admin', 'tester', 'lead'] as const;
 const importQuery = z.strictObject({
   mode: z.enum(['preview', 'all', 'valid-only'], { error: 'mode must be preview, all or valid-only' }).default('preview'),
@@ -24,7 +30,15 @@ export function stockRoutes({ dataSource }: AppDeps): RouteSpec[] {
     defineRoute({
       method: 'get', path: '/export.csv', access: READERS,
       handler: async ({ res }) => {
-        res.type('text/csv').attachment('tallyvolt-stock.csv').send(stockToCsv(await allStock(dataSource)));
+        res.type('text/csv').attachment('tallyvolt-stock.csv');
+        try {
+          await streamCsv(res, STOCK_CSV_COLUMNS, rowsOf(stockInPages(dataSource)));
+        } catch (err) {
+          // Once rows are on their way the status is sent; a cut connection is all the reader can be told.
+          if (!res.headersSent) throw err;
+          console.error('[error] stock download stopped', err);
+          res.destroy();
+        }
       },
     }),
     defineRoute({
@@ -42,13 +56,14 @@ export function stockRoutes({ dataSource }: AppDeps): RouteSpec[] {
     defineRoute({
       method: 'post', path: '/import', access: WRITERS, query: importQuery, before: [csvUpload],
       handler: async ({ query, user, req, res }) => {
-        const preview = previewStockCsv(readCsv(req.file!.buffer));
+        const checked = previewStockCsv(readCsv(req.file!.buffer));
         if (query.mode === 'preview') {
+          const preview: StockPreview = { ...checked, room: await stockRoom(dataSource) };
           res.json(preview);
           return;
         }
-        const imported = await importStock(dataSource, user!, preview, query.mode === 'valid-only');
-        const outcome: StockImportOutcome = { imported, skipped: preview.invalidCount, problems: preview.problems };
+        const imported = await importStock(dataSource, user!, checked, query.mode === 'valid-only');
+        const outcome: StockImportOutcome = { imported, skipped: checked.invalidCount, problems: checked.problems };
         res.status(201).json(outcome);
       },
     }),

@@ -1,10 +1,10 @@
-import type { DataSource, FindOptionsWhere } from 'typeorm';
+import type { DataSource, EntityManager, FindOptionsWhere } from 'typeorm';
 import { Between } from 'typeorm';
-import type { StockPartBody } from '../../../shared/schemas/stock.js';
+import { STOCK_PART_LIMIT, type StockPartBody } from '../../../shared/schemas/stock.js';
 import { parseEngineering } from '../../../shared/units/index.js';
 import { recordAudit } from '../../common/audit.js';
 import { importableRows } from '../../common/csv.js';
-import { BadRequestError, NotFoundError } from '../../common/errors.js';
+import { BadRequestError, ConflictError, NotFoundError } from '../../common/errors.js';
 import { StockPart } from '../../entities/StockPart.js';
 import type { User } from '../../entities/User.js';
 import type { StockPreview } from '../../../shared/schemas/stock-views.js';
@@ -39,10 +39,42 @@ export async function listStock(dataSource: DataSource, o: StockListOptions) {
   return { items, total };
 }
 
-export const allStock = (dataSource: DataSource) => dataSource.getRepository(StockPart).find({ order: { ohms: 'ASC', id: 'ASC' } });
+/**
+ * The whole stock in value order, a page at a time: each page is read only when the caller asks for it,
+ * and keyed on the last row read (not an offset), so a page costs the same however far in it is.
+ */
+export async function* stockInPages(dataSource: DataSource, pageSize = 500): AsyncGenerator<StockPart[]> {
+  let last: StockPart | undefined;
+  for (;;) {
+    const query = dataSource.getRepository(StockPart).createQueryBuilder('p').orderBy('p.ohms', 'ASC').addOrderBy('p.id', 'ASC').limit(pageSize);
+    if (last) query.where('p.ohms > :ohms OR (p.ohms = :ohms AND p.id > :id)', { ohms: last.ohms, id: last.id });
+    const page = await query.getMany();
+    if (page.length === 0) return;
+    yield page;
+    if (page.length < pageSize) return;
+    last = page[page.length - 1];
+  }
+}
+
+/** How many more parts the stock takes. */
+export async function stockRoom(m: DataSource | EntityManager): Promise<number> {
+  return Math.max(0, STOCK_PART_LIMIT - (await m.getRepository(StockPart).count()));
+}
+
+/** Refuses, inside the writing transaction, a change that would take the stock past its limit. */
+async function assertRoom(m: EntityManager, adding: number, source: 'file' | 'part'): Promise<void> {
+  const room = await stockRoom(m);
+  if (adding <= room) return;
+  const what = source === 'file' ? `this file adds ${adding}, so nothing was imported` : 'so this part was not added';
+  throw new ConflictError(
+    `the stock holds at most ${STOCK_PART_LIMIT} parts and has room for ${room}; ${what}. Delete parts no longer on the shelf first`,
+    source === 'file' ? { file: `room for ${room} of ${STOCK_PART_LIMIT} parts` } : undefined,
+  );
+}
 
 export async function createStockPart(dataSource: DataSource, actor: User, body: StockPartBody): Promise<StockPart> {
   return dataSource.transaction(async (m) => {
+    await assertRoom(m, 1, 'part');
     const part = await m.getRepository(StockPart).save(m.getRepository(StockPart).create(body));
     await recordAudit(m, actor.id, 'stock.create', `stock:${part.id}`, { ohms: part.ohms });
     return part;
@@ -84,9 +116,10 @@ async function faultPause(): Promise<void> {
  * Stores the previewed rows in one transaction: all of them, or only the valid ones when the person chose so.
  * With `onlyValid` false, any bad row refuses the whole file and nothing is stored.
  */
-export async function importStock(dataSource: DataSource, actor: User, preview: StockPreview, onlyValid: boolean): Promise<number> {
+export async function importStock(dataSource: DataSource, actor: User, preview: Pick<StockPreview, 'rows' | 'invalidCount'>, onlyValid: boolean): Promise<number> {
   const parts = importableRows(preview.rows.map((r) => r.part), onlyValid);
   await dataSource.transaction(async (m) => {
+    await assertRoom(m, parts.length, 'file');
     const repo = m.getRepository(StockPart);
     // Chunked inserts keep each statement under SQLite's variable limit.
     for (let i = 0; i < parts.length; i += 200) {
