@@ -37,7 +37,11 @@ export function createApp(deps: AppDeps): BuiltApp {
   const app = express();
   app.disable('x-powered-by');
   app.set('trust proxy', config.trustProxy ? 1 : false);
-  app.use(helmet());
+  // upgrade-insecure-requests over plain HTTP (HOST=0.0.0.0 on a network) sends the browser to https for
+  // every script, and the page stays blank: ask for it only on a request that came over HTTPS.
+  const overHttps = helmet();
+  const overHttp = helmet({ contentSecurityPolicy: { directives: { upgradeInsecureRequests: null } } });
+  app.use((req, res, next) => (req.secure ? overHttps : overHttp)(req, res, next));
   app.use(express.json({ limit: JSON_BODY_LIMIT }));
   app.use(createSessionMiddleware(dataSource, config));
   const passport = configurePassport(dataSource);
@@ -67,7 +71,9 @@ export function createApp(deps: AppDeps): BuiltApp {
   if (fs.existsSync(path.join(config.distDir, 'index.html'))) {
     app.use(express.static(config.distDir, { index: false, maxAge: '1h' }));
     // Client-side routes: every other GET gets the app shell.
-    app.get('/{*splat}', (_req, res) => res.sendFile(path.join(config.distDir, 'index.html')));
+    // Relative to the client folder: the static sender refuses an absolute path through a dot-folder
+    // (a checkout under ~/.local/share) as a dotfile.
+    app.get('/{*splat}', (_req, res) => res.sendFile('index.html', { root: config.distDir }));
   }
   app.use(errorHandler);
   return { app, routeTable };

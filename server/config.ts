@@ -1,6 +1,7 @@
 import os from 'node:os';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
+import { readPublicUrl } from './common/public-url.js';
 
 export const projectRoot = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
 
@@ -10,7 +11,7 @@ export interface AppConfig {
   databasePath: string;
   smtpUrl: string | null;
   mailFrom: string;
-  /** Base URL used in links inside e-mails. */
+  /** Base URL used in links inside e-mails (see publicBaseUrl for the address used without it). */
   publicUrl: string | null;
   sessionSecret: string | null;
   trustProxy: boolean;
@@ -37,7 +38,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
     databasePath: env.DATABASE_PATH ?? path.join(projectRoot, 'data', 'tallyvolt.sqlite'),
     smtpUrl: env.SMTP_URL || null,
     mailFrom: env.MAIL_FROM ?? 'Tallyvolt <tallyvolt@example.test>',
-    publicUrl: env.PUBLIC_URL || null,
+    publicUrl: readPublicUrl(env.PUBLIC_URL),
     sessionSecret: env.SESSION_SECRET || null,
     trustProxy: flag(env.TRUST_PROXY, false),
     rateLimits: flag(env.RATE_LIMITS, true),
