@@ -8,6 +8,22 @@ import { capitalise } from '@/utils/formatQuantity';
 import { applyDifferences, leafAt, plainValue, type KeptRow } from '@/utils/valueDifferences';
 import { useSaveConflict } from './useSaveConflict';
 
+// The form's own words for each input, so the kept-changes list reads like the form.
+const INPUT_LABELS: Record<string, string> = {
+  packMinV: 'Pack minimum', packMaxV: 'Pack maximum', closingThresholdPct: 'Closing threshold', requiredRatioPct: 'Required true ratio',
+  maxStepV: 'Largest voltage step', prechargeOhm: 'Pre-charge resistance', prechargeTolerancePct: 'Pre-charge tolerance',
+  linkCapacitanceF: 'Link capacitance', capacitanceTolerancePct: 'Capacitance tolerance', packChannelKey: 'Pack channel',
+  linkChannelKey: 'Link channel', updateIntervalS: 'Update interval', consecutiveReadings: 'Consecutive readings', timeoutS: 'Timeout',
+  plausibilityMarginPct: 'Plausibility margin', allowedProbability: 'Allowed probability', readingErrors: 'Reading errors',
+  faults: 'Fault', leakagePaths: 'Leakage path',
+};
+function inputLabel(path: string): string {
+  const [field, index, ...rest] = path.split('.');
+  const name = INPUT_LABELS[field] ?? field;
+  if (index === undefined) return name;
+  return /^\d+$/.test(index) ? `${name} ${Number(index) + 1}${rest.length ? ` (${rest.join('.')})` : ''}` : `${name} (${[index, ...rest].join('.')})`;
+}
+
 /** A refused stale save of the margin inputs: who saved first, the person's kept values, and what to do with them. */
 function useMarginInputsConflict() {
   const store = useMarginStore();
@@ -32,7 +48,7 @@ function useMarginInputsConflict() {
   }
 
   const rows = computed<KeptRow[]>(() => (state.kept.value && store.draft
-    ? state.edits.value.map((d) => ({ label: d.path, mine: plainValue(d.mine, d.path), theirs: plainValue(leafAt(store.draft, d.path), d.path) }))
+    ? state.edits.value.map((d) => ({ label: inputLabel(d.path), mine: plainValue(d.mine, d.path), theirs: plainValue(leafAt(store.draft, d.path), d.path) }))
     : []));
 
   /** Lays the person's own changes over the inputs now loaded; the other person's changes elsewhere stay. */

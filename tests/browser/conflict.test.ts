@@ -7,6 +7,7 @@ import { openBrowserRig, type BrowserRig } from '../helpers/browser.js';
 import { ARTIFACTS_DIR } from '../helpers/built-client.js';
 import { hashPassword } from '../../server/common/passwords.js';
 import { Channel } from '../../server/entities/Channel.js';
+import { MarginInputsRecord } from '../../server/entities/MarginInputsRecord.js';
 import { User } from '../../server/entities/User.js';
 
 /** A second designer (invented) working on the same draft as the demo designer. */
@@ -24,6 +25,7 @@ describe('two designers saving the same draft revision', () => {
   let rig: BrowserRig;
   let second: BrowserContext;
   let profile = '';
+  let sharedRevisionId = 0;
   beforeAll(async () => {
     rig = await openBrowserRig();
     const users = rig.app.dataSource.getRepository(User);
@@ -93,5 +95,44 @@ describe('two designers saving the same draft revision', () => {
     const stored = await rig.app.dataSource.getRepository(Channel).findBy({ revisionId });
     expect(stored.find((c) => c.key === 'pack')!.definition.divider.bottom.nominalOhm).toBe(33_200); // the first designer's value
     expect(stored.find((c) => c.key === 'link')!.definition.divider.bottom.nominalOhm).toBe(30_100); // the second designer's value
+    sharedRevisionId = revisionId;
   }, 180_000);
+
+  it('does the same for the margin inputs of that draft', async () => {
+    const first = rig.page;
+    const other = second.pages()[0];
+    const url = `${rig.baseUrl}/revisions/${sharedRevisionId}/margin`;
+    await first.goto(url);
+    await other.goto(url);
+    await expect.poll(() => first.locator('#mf-timeout').inputValue(), { timeout: 20_000 }).toBe('5');
+    await expect.poll(() => other.locator('#mf-r').inputValue(), { timeout: 20_000 }).toBe('1.5k');
+
+    await first.locator('#mf-timeout').fill('6');
+    await first.locator('#mf-timeout').press('Tab');
+    await first.getByRole('button', { name: 'Save the margin inputs' }).click();
+    await expect.poll(() => first.getByText('Margin inputs saved').first().isVisible()).toBe(true);
+
+    await other.locator('#mf-r').fill('2.2k');
+    await other.locator('#mf-r').press('Tab');
+    await other.getByRole('button', { name: 'Save the margin inputs' }).click();
+    const notice = other.getByRole('alert').filter({ hasText: 'someone else saved first' });
+    await expect.poll(() => notice.isVisible()).toBe(true);
+    expect(await notice.innerText()).toMatch(/Tamsin Fenwright saved this revision's margin inputs at .* while you were editing/);
+    expect(await other.locator('#mf-r').inputValue()).toBe('2.2k'); // their own edit is still on screen
+
+    await other.getByRole('button', { name: 'Load their version' }).click();
+    const kept = other.getByRole('region', { name: /Your unsaved margin inputs/ });
+    await expect.poll(() => kept.isVisible()).toBe(true);
+    expect(await kept.getByRole('row', { name: /Pre-charge resistance/ }).innerText()).toMatch(/2200 Ω\s+1500 Ω/);
+    await expect.poll(() => other.locator('#mf-timeout').inputValue()).toBe('6'); // the first designer's change is loaded
+    await other.screenshot({ path: path.join(ARTIFACTS_DIR, 'conflict-margin-kept.png'), fullPage: true });
+
+    await other.getByRole('button', { name: 'Put my changes back' }).click();
+    await expect.poll(() => other.locator('#mf-r').inputValue()).toBe('2.2k');
+    expect(await other.locator('#mf-timeout').inputValue()).toBe('6');
+    await other.getByRole('button', { name: 'Save the margin inputs' }).click();
+    await expect.poll(async () => (await rig.app.dataSource.getRepository(MarginInputsRecord).findOneBy({ revisionId: sharedRevisionId }))?.version).toBe(2); // two saves, one version step each (the rule under test)
+    const record = await rig.app.dataSource.getRepository(MarginInputsRecord).findOneByOrFail({ revisionId: sharedRevisionId });
+    expect(record.inputs).toMatchObject({ timeoutS: 6, prechargeOhm: 2200 }); // the first designer's timeout and the second's resistance
+  }, 120_000);
 });
