@@ -52,6 +52,11 @@ export function channelGum(c: CompiledChannel, coverageProbability = 0.95): Chan
 /** Worst-case result at one evaluation voltage. */
 export interface ChannelWorstCasePoint extends WorstCaseResult {
   voltageV: number;
+  /**
+   * Set by a study when some Monte Carlo trial fell outside the corners found (a normal input
+   * drawn beyond ±k·σ, or a search that stopped short): the bounds were widened to that trial.
+   */
+  widenedToTrials?: boolean;
 }
 
 /**

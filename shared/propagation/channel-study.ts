@@ -50,6 +50,17 @@ export interface ChannelStudy {
   gumAdequate: boolean;
 }
 
+/**
+ * A worst case a lead may sign is never narrower than what the simulation itself produced: the
+ * corner bounds are widened to the smallest and largest trial error, and marked when that happened.
+ */
+function enclosingTrials(worst: ChannelWorstCasePoint, mc: OutputSummary): ChannelWorstCasePoint {
+  if (mc.minimum >= worst.minimum && mc.maximum <= worst.maximum) return worst;
+  const minimum = Math.min(worst.minimum, mc.minimum);
+  const maximum = Math.max(worst.maximum, mc.maximum);
+  return { ...worst, minimum, maximum, maxAbs: Math.max(Math.abs(minimum), Math.abs(maximum)), widenedToTrials: true };
+}
+
 function fixedRun(kernel: TrialKernel, seed: number, trials: number, p: number, report?: (fraction: number) => void) {
   const blocks = blockCountFor(trials);
   const chunk = simulateBlocks(kernel, seed, trials, 0, blocks, report && ((done) => { if (done % 20 === 0) report(done / blocks); }));
@@ -102,7 +113,7 @@ export function channelStudy(channel: ChannelDefinition, options: ChannelStudyOp
     voltageV,
     monteCarlo: mc.outputs[g],
     gum: gum[g],
-    worstCase: worst[g],
+    worstCase: enclosingTrials(worst[g], mc.outputs[g]),
     gumValidation: validateGum(gum[g], mc.outputs[g].symmetricInterval, ndig),
     stabilisation: mc.stabilisation[g],
     counterOverflow: overflow[g].overflows,
