@@ -3,7 +3,7 @@ import type { DataSource } from 'typeorm';
 import type { RunKind } from '../../../shared/schemas/runs.js';
 import type { UncertaintyStudyRequest } from '../../../shared/schemas/runs.js';
 import { recordAudit } from '../../common/audit.js';
-import { ConflictError, NotFoundError } from '../../common/errors.js';
+import { ConflictError, ForbiddenError, NotFoundError } from '../../common/errors.js';
 import { AnalysisRun } from '../../entities/AnalysisRun.js';
 import type { User } from '../../entities/User.js';
 import { getRevision } from '../revisions/revisions.service.js';
@@ -59,8 +59,12 @@ export const listRuns = (dataSource: DataSource, revisionId: number, kind: RunKi
     take: 50,
   });
 
+/** Only the person who started a study, or an admin, may cancel it: a colleague's long run is not theirs to stop. */
 export async function cancelRun(dataSource: DataSource, scheduler: RunScheduler, actor: User, id: number): Promise<void> {
   const run = await getRun(dataSource, id);
+  if (run.requestedById !== actor.id && actor.role !== 'admin') {
+    throw new ForbiddenError(`study ${id} was started by ${run.requestedBy.displayName}; only they or an admin may cancel it`);
+  }
   if (!scheduler.cancel(id)) throw new ConflictError(`study ${id} is ${run.state}; only a queued or running study can be cancelled`);
   await recordAudit(dataSource.manager, actor.id, 'study.cancel', `revision:${run.revisionId}`, { run: id });
 }
