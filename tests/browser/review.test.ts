@@ -117,6 +117,7 @@ describe('the review of a revision in the browser', () => {
     await page.goto(`${rig.baseUrl}/revisions/${revisionId}`);
     await expect.poll(() => page.locator('h1').innerText()).toContain('Approved');
     await expect.poll(() => bar.innerText()).toContain('Accepted for the bench build');
+    expect(await bar.innerText()).toMatch(/Approved with an override[\s\S]*caught by the bench check before first power-up/);
     await rig.screenshot('review-designer-approved');
 
     await page.goto(`${rig.baseUrl}/revisions/${revisionId}/report`);
