@@ -2,7 +2,8 @@ import type { DataSource } from 'typeorm';
 import { dividerNominal, nominalFrequencyHz } from '../../shared/chain/index.js';
 import { recordAudit } from '../common/audit.js';
 import { createBoard } from '../api/boards/boards.service.js';
-import { createSession, writePoints } from '../api/calibration/sessions.service.js';
+import { createSession, getSession, writePoints } from '../api/calibration/sessions.service.js';
+import { currentRecord } from '../api/calibration/session-export.js';
 import { CalibrationSession } from '../entities/CalibrationSession.js';
 import { Channel } from '../entities/Channel.js';
 import { Revision } from '../entities/Revision.js';
@@ -37,5 +38,6 @@ export async function seedDemoCalibration(dataSource: DataSource, tester: User):
       await m.getRepository(CalibrationSession).update({ id: session.id }, { state: 'complete', completedAt: new Date('2026-11-20T15:30:00Z') });
       await recordAudit(m, tester.id, 'calibration.complete', `calibration:${session.id}`, { seeded: true });
     });
+    await currentRecord(dataSource, await getSession(dataSource, session.id)); // freezes record 1, as completing does
   }
 }

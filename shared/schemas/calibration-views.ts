@@ -138,6 +138,19 @@ export interface SessionAnalysis {
   reason: string | null;
 }
 
+/**
+ * A frozen record of a completed session: the fit, the reading coefficients (float and fixed point) and the
+ * session's identity, stored once as canonical JSON with its SHA-256. Exports of a completed session come from
+ * it; completing again after a reopen adds the next sequence number and leaves the earlier ones as they were.
+ */
+export interface CalibrationRecordView {
+  sequence: number;
+  /** SHA-256 of the record's canonical JSON, lower-case hex. */
+  sha256: string;
+  createdAt: string;
+  createdBy: PersonRef;
+}
+
 export interface SessionDetail extends SessionSummary {
   reference: ReferenceSpec;
   fit: FitSettings;
@@ -150,6 +163,8 @@ export interface SessionDetail extends SessionSummary {
   /** Who changed the points last and when (null before the first change). */
   pointsSavedBy: PersonRef | null;
   pointsSavedAt: string | null;
+  /** Frozen records, oldest first; for a completed session, analysis.fit is the latest record's fit. */
+  records: CalibrationRecordView[];
 }
 
 export interface CalibrationOverview {

@@ -1,4 +1,5 @@
 import type { Board } from '../../entities/Board.js';
+import type { CalibrationRecord } from '../../entities/CalibrationRecord.js';
 import type { CalibrationSession } from '../../entities/CalibrationSession.js';
 import { isoTime, isoTimeOrNull } from '../../common/iso-time.js';
 import type { BoardRow, SessionDetail, SessionSummary, SessionAnalysis } from '../../../shared/schemas/calibration-views.js';
@@ -18,7 +19,7 @@ export function toSessionSummary(s: CalibrationSession): SessionSummary {
   };
 }
 
-export function toSessionDetail(s: CalibrationSession, analysis: SessionAnalysis): SessionDetail {
+export function toSessionDetail(s: CalibrationSession, analysis: SessionAnalysis, records: CalibrationRecord[] = []): SessionDetail {
   return {
     ...toSessionSummary(s),
     reference: s.reference,
@@ -32,6 +33,8 @@ export function toSessionDetail(s: CalibrationSession, analysis: SessionAnalysis
     pointsVersion: s.pointsVersion,
     pointsSavedBy: s.pointsSavedBy ? { id: s.pointsSavedBy.id, displayName: s.pointsSavedBy.displayName } : null,
     pointsSavedAt: isoTimeOrNull(s.pointsSavedAt),
+    records: records.map((r) => ({ sequence: r.sequence, sha256: r.sha256, createdAt: isoTime(r.createdAt),
+      createdBy: { id: r.createdBy.id, displayName: r.createdBy.displayName } })),
   };
 }
 

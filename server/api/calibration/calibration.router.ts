@@ -1,18 +1,20 @@
 import { z } from 'zod';
-import { csvMappingSchema, pointExclusionSchema, pointsReplaceSchema, sessionPatchSchema } from '../../../shared/schemas/calibration.js';
+import { csvMappingSchema, MAX_POINTS_PER_SESSION, pointExclusionSchema, pointsReplaceSchema, sessionPatchSchema } from '../../../shared/schemas/calibration.js';
 import { idParamSchema } from '../../../shared/schemas/common.js';
 import { importableRows, readCsv } from '../../common/csv.js';
 import type { AppDeps } from '../../common/deps.js';
-import { BadRequestError, ConflictError } from '../../common/errors.js';
+import { BadRequestError } from '../../common/errors.js';
 import { defineRoute, type RouteSpec } from '../../common/routes.js';
 import { csvUpload } from '../../common/upload.js';
 import { parseOrThrow } from '../../common/validation.js';
 import { CALIBRATION_READERS, CALIBRATION_WRITERS } from '../boards/boards.router.js';
 import { calibrationOverview } from './calibration-overview.js';
 import { toSessionDetail } from './calibration.mapper.js';
-import { cHeader, jsonExport, type ExportContext } from './firmware-export.js';
-import { previewPointsCsv } from './points-csv.js';
-import { analyseSession, completeSession, getSession, sessionChannel, setExclusion, updateSession, writePoints } from './sessions.service.js';
+import { cHeader, jsonExport } from './firmware-export.js';
+import { listRecords } from './calibration-records.js';
+import { currentRecord, exportSource, shownAnalysis } from './session-export.js';
+import { assertCsvWithinLimit, previewPointsCsv } from './points-csv.js';
+import { analyseSession, completeSession, getSession, reopenSession, sessionChannel, setExclusion, updateSession, writePoints } from './sessions.service.js';
 import { publicBaseUrl } from '../../common/public-url.js';
 
 const importQuery = z.strictObject({
@@ -21,6 +23,11 @@ const importQuery = z.strictObject({
 const pointParams = z.strictObject({
   id: idParamSchema.shape.id,
   pointId: idParamSchema.shape.id,
+});
+/** Which frozen record to export; absent means the latest (or, for a draft, the fit computed now). */
+const exportQuery = z.strictObject({
+  record: z.coerce.number({ error: 'record must be a number' }).int({ error: 'record must be a whole number' })
+    .positive({ error: 'record must be 1 or more' }).optional(),
 });
 const overviewQuery = z.strictObject({
   revisionId: z.coerce.number({ error: 'revisionId must be a number' }).int().positive(),
@@ -42,21 +49,8 @@ function mappingOf(field: unknown) {
 export function calibrationRoutes({ dataSource, mailer, config }: AppDeps): RouteSpec[] {
   const detail = async (id: number) => {
     const session = await getSession(dataSource, id);
-    return toSessionDetail(session, await analyseSession(dataSource, session));
-  };
-  const exportContext = async (id: number): Promise<{ ctx: ExportContext; analysis: Awaited<ReturnType<typeof analyseSession>> }> => {
-    const session = await getSession(dataSource, id);
-    const analysis = await analyseSession(dataSource, session);
-    if (!analysis.fit) throw new ConflictError(`nothing to export yet: ${analysis.reason}`);
-    const channel = await sessionChannel(dataSource, session);
-    return {
-      analysis,
-      ctx: {
-        serialNumber: session.board.serialNumber, designName: session.board.revision.design.name, revisionLetter: session.board.revision.letter,
-        channelKey: session.channelKey, channelName: channel.name, sessionId: session.id, performedOn: session.performedOn,
-        ambientC: session.ambientC, state: session.state, testerName: session.tester.displayName,
-      },
-    };
+    const analysis = shownAnalysis(await analyseSession(dataSource, session), await currentRecord(dataSource, session));
+    return toSessionDetail(session, analysis, await listRecords(dataSource, id));
   };
   return [
     defineRoute({
@@ -86,7 +80,9 @@ export function calibrationRoutes({ dataSource, mailer, config }: AppDeps): Rout
       handler: async ({ params, query, user, req, res }) => {
         const mapping = mappingOf(req.body?.mapping);
         const session = await getSession(dataSource, params.id);
-        const preview = previewPointsCsv(readCsv(req.file!.buffer), mapping, (await sessionChannel(dataSource, session)).capture);
+        const table = readCsv(req.file!.buffer, { maxRows: MAX_POINTS_PER_SESSION });
+        assertCsvWithinLimit(table, req.file!.buffer, session.points.length);
+        const preview = previewPointsCsv(table, mapping, (await sessionChannel(dataSource, session)).capture);
         if (query.mode === 'preview') {
           res.json(preview);
           return;
@@ -115,18 +111,26 @@ export function calibrationRoutes({ dataSource, mailer, config }: AppDeps): Rout
       },
     }),
     defineRoute({
-      method: 'get', path: '/:id/export.h', access: CALIBRATION_READERS, params: idParamSchema,
-      handler: async ({ params, res }) => {
-        const { ctx, analysis } = await exportContext(params.id);
-        const name = `tallyvolt_${ctx.serialNumber}_${ctx.channelKey}`.replace(/[^A-Za-z0-9_]+/g, '_').toLowerCase();
-        res.type('text/x-c').attachment(`${name}.h`).send(cHeader(ctx, analysis.fit!));
+      method: 'post', path: '/:id/reopen', access: CALIBRATION_WRITERS, params: idParamSchema,
+      handler: async ({ params, user, res }) => {
+        await reopenSession(dataSource, user!, params.id);
+        res.json({ session: await detail(params.id) });
       },
     }),
     defineRoute({
-      method: 'get', path: '/:id/export.json', access: CALIBRATION_READERS, params: idParamSchema,
-      handler: async ({ params, res }) => {
-        const { ctx, analysis } = await exportContext(params.id);
-        res.attachment(`tallyvolt-${ctx.serialNumber}-${ctx.channelKey}.json`.replace(/[^A-Za-z0-9_.-]+/g, '-')).json(jsonExport(ctx, analysis.fit!));
+      method: 'get', path: '/:id/export.h', access: CALIBRATION_READERS, params: idParamSchema, query: exportQuery,
+      handler: async ({ params, query, res }) => {
+        const { ctx, fit, record } = await exportSource(dataSource, params.id, query.record);
+        const name = `tallyvolt_${ctx.serialNumber}_${ctx.channelKey}${record ? `_r${record.sequence}` : ''}`.replace(/[^A-Za-z0-9_]+/g, '_').toLowerCase();
+        res.type('text/x-c').attachment(`${name}.h`).send(cHeader(ctx, fit, record));
+      },
+    }),
+    defineRoute({
+      method: 'get', path: '/:id/export.json', access: CALIBRATION_READERS, params: idParamSchema, query: exportQuery,
+      handler: async ({ params, query, res }) => {
+        const { ctx, fit, record } = await exportSource(dataSource, params.id, query.record);
+        const name = `tallyvolt-${ctx.serialNumber}-${ctx.channelKey}${record ? `-r${record.sequence}` : ''}.json`;
+        res.attachment(name.replace(/[^A-Za-z0-9_.-]+/g, '-')).json(jsonExport(ctx, fit, record));
       },
     }),
   ];

@@ -1,5 +1,5 @@
 import type { FitView } from '../../../shared/schemas/calibration-views.js';
-import { fixedPointForm } from '../../../shared/fit/fixed-point.js';
+import { fixedPointForm, type FixedPointForm } from '../../../shared/fit/fixed-point.js';
 import { ConflictError } from '../../common/errors.js';
 import { commentText, floatLiteral, identifierPart, stringLiteral } from './c-text.js';
 import { boundText, cReadingCode } from './c-reading.js';
@@ -17,14 +17,29 @@ export interface ExportContext {
   testerName: string;
 }
 
-/** The float literals and the fixed-point form of the reading, or a 409 saying why this fit has none. */
-function readingForms(fit: FitView) {
+/** Which frozen record an export comes from, and the fixed-point form stored in it (never recomputed). */
+export interface ExportRecord {
+  sequence: number;
+  sha256: string;
+  fixed: FixedPointForm;
+}
+
+/** The sentence every export of a record carries, so a flashed header can be traced to the stored record. */
+export const recordStatement = (sessionId: number, record: ExportRecord): string =>
+  `record ${record.sequence} of session ${sessionId}, SHA-256 ${record.sha256}`;
+
+/** The float literals and the fixed-point form of the reading (a record's own, or computed for a draft), or a 409 saying why this fit has none. */
+function readingForms(fit: FitView, record?: ExportRecord) {
   try {
-    return { literals: fit.inverse.coefficients.map(floatLiteral), fixed: fixedPointForm(fit.inverse.coefficients, fit.rangeHz) };
+    return { literals: fit.inverse.coefficients.map(floatLiteral), fixed: record?.fixed ?? fixedPointForm(fit.inverse.coefficients, fit.rangeHz) };
   } catch (e) {
     throw new ConflictError(`this fit cannot be exported for firmware: ${(e as Error).message}`);
   }
 }
+
+const recordLine = (ctx: ExportContext, record?: ExportRecord) => (record
+  ? ` * From the frozen calibration ${recordStatement(ctx.sessionId, record)} (of the record's canonical JSON); a later change of the fit does not change it.\n`
+  : ' * Not from a frozen record: the session is a draft, and its fit may still change.\n');
 
 const uncertaintyLine = (fit: FitView) =>
   fit.readingUncertainty.map((u) => `+-${u.expandedV.toPrecision(2)} V at ${u.appliedV.toPrecision(4)} V`).join(', ');
@@ -36,16 +51,16 @@ const uncertaintyLine = (fit: FitView) =>
  * prefixed by the channel so headers of several channels can be included together; names people typed appear
  * only as comment text or escaped string literals, so the header compiles whatever they hold.
  */
-export function cHeader(ctx: ExportContext, fit: FitView): string {
+export function cHeader(ctx: ExportContext, fit: FitView, record?: ExportRecord): string {
   const p = `TV_${identifierPart(ctx.channelKey)}`;
   const lower = p.toLowerCase();
   const guard = `TALLYVOLT_CAL_${identifierPart(ctx.serialNumber)}_${identifierPart(ctx.channelKey)}_H`;
-  const { literals, fixed } = readingForms(fit);
+  const { literals, fixed } = readingForms(fit, record);
   return `/*
  * Tallyvolt calibration coefficients. Generated file: do not edit by hand.
  * Board ${commentText(ctx.serialNumber)}, design "${commentText(ctx.designName)}" revision ${commentText(ctx.revisionLetter)}, channel ${commentText(ctx.channelKey)} (${commentText(ctx.channelName)}).
  * Calibration session ${ctx.sessionId} on ${commentText(ctx.performedOn)} by ${commentText(ctx.testerName)} at ${ctx.ambientC.toFixed(1)} degC; session state: ${commentText(ctx.state)}.
- * Reading: volts = sum over k of ${lower}_coeff[k] * f^k, with f the measured frequency in Hz (${lower}_volts_float).
+${recordLine(ctx, record)} * Reading: volts = sum over k of ${lower}_coeff[k] * f^k, with f the measured frequency in Hz (${lower}_volts_float).
  * ${fit.inverse.exact ? 'Exact inverse of the fitted straight line.' : `Least-squares inverse of the degree ${fit.settings.degree} fit; its largest departure is ${fit.inverse.maxInverseErrorV.toExponential(2)} V.`}
  * Fixed point (${lower}_volts_fixed, integers only): the input is f x 2^${fixed.frequencyFracBits} as a uint32_t; u = (input - ${p}_MID_FX) / ${p}_HALF_FX
  * in Q${fixed.uFracBits}, within -1..1 over the calibrated range (inputs beyond half the span outside it are clamped); volts = sum over k of ${lower}_u_q[k] / 2^${lower}_u_shift[k] * u^k by Horner's
@@ -77,8 +92,8 @@ static const float ${lower}_max_hz = ${floatLiteral(fit.rangeHz.max)};
  * The same coefficients as JSON, with the forward fit and its statistics for records. Version 2: the fixed-point
  * form moved from reading.scaled (coefficients of f) to reading.fixedPoint (coefficients of the normalised u).
  */
-export function jsonExport(ctx: ExportContext, fit: FitView) {
-  const { fixed } = readingForms(fit);
+export function jsonExport(ctx: ExportContext, fit: FitView, record?: ExportRecord) {
+  const { fixed } = readingForms(fit, record);
   return {
     format: 'tallyvolt-calibration',
     version: 2,
@@ -87,6 +102,10 @@ export function jsonExport(ctx: ExportContext, fit: FitView) {
     revision: ctx.revisionLetter,
     channel: { key: ctx.channelKey, name: ctx.channelName },
     session: { id: ctx.sessionId, performedOn: ctx.performedOn, ambientC: ctx.ambientC, state: ctx.state, tester: ctx.testerName },
+    /** The frozen record this export was made from; null for a draft session's export. */
+    record: record
+      ? { sequence: record.sequence, sha256: record.sha256, statement: recordStatement(ctx.sessionId, record), hashOf: 'the record\'s canonical JSON (UTF-8)' }
+      : null,
     reading: {
       form: 'volts = sum(coefficients[k] * f^k), f in Hz',
       coefficients: fit.inverse.coefficients,

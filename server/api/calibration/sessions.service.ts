@@ -1,5 +1,6 @@
 import type { DataSource, EntityManager } from 'typeorm';
 import type { CalibrationPointBody, SessionCreateBody, SessionPatchBody } from '../../../shared/schemas/calibration.js';
+import { MAX_POINTS_PER_SESSION, pointsLimitMessage } from '../../../shared/schemas/calibration.js';
 import type { ChannelDefinition } from '../../../shared/schemas/chain.js';
 import { recordAudit } from '../../common/audit.js';
 import { BadRequestError, ConflictError, NotFoundError } from '../../common/errors.js';
@@ -13,6 +14,7 @@ import type { User } from '../../entities/User.js';
 import { sessionCompleteMessage } from './calibration.mail.js';
 import { compareBoard } from './design-spread.js';
 import { fitSession } from './session-fit.js';
+import { freezeRecord } from './calibration-records.js';
 
 /** Fewest points a straight-line calibration with uncertainty can stand on. */
 export const MIN_POINTS_TO_COMPLETE = 3;
@@ -86,6 +88,8 @@ export async function writePoints(
   await dataSource.transaction(async (m) => {
     const session = await getSession(m, id);
     assertEditable(session);
+    const total = (mode === 'replace' ? 0 : session.points.length) + points.length;
+    if (total > MAX_POINTS_PER_SESSION) throw new BadRequestError(pointsLimitMessage(total), { points: pointsLimitMessage(total) });
     await bumpPointsVersion(m, session, actor, baseVersion);
     const repo = m.getRepository(CalibrationPoint);
     if (mode === 'replace') await repo.delete({ sessionId: id });
@@ -116,7 +120,7 @@ export async function setExclusion(
 }
 
 /** Fit and comparison with the design, or the reason there is none yet. */
-export async function analyseSession(dataSource: DataSource, session: CalibrationSession) {
+export async function analyseSession(dataSource: DataSource | EntityManager, session: CalibrationSession) {
   const used = session.points.filter((p) => !p.excluded);
   const needed = session.fit.degree + (session.fit.intercept ? 1 : 0) + 1;
   if (used.length < needed) {
@@ -140,13 +144,22 @@ export async function completeSession(dataSource: DataSource, mailer: Mailer, ac
   if (!fit || session.points.filter((p) => !p.excluded).length < MIN_POINTS_TO_COMPLETE) {
     throw new ConflictError(`calibration session ${id} cannot be completed: ${reason ?? `needs at least ${MIN_POINTS_TO_COMPLETE} points`}`);
   }
+  const channel = await sessionChannel(dataSource, session);
   await dataSource.transaction(async (m) => {
-    const done = await m.getRepository(CalibrationSession).update({ id, state: 'draft' }, { state: 'complete', completedAt: new Date() });
+    // The record freezes what was analysed above, so nothing may have changed since it was read.
+    const fresh = await m.getRepository(CalibrationSession).findOneBy({ id });
+    if (fresh && fresh.state === 'draft' && fresh.updatedAt.getTime() !== session.updatedAt.getTime()) {
+      throw new ConflictError(`calibration session ${id} changed while it was being completed; reload it and complete again`);
+    }
+    const at = new Date();
+    const done = await m.getRepository(CalibrationSession).update({ id, state: 'draft' }, { state: 'complete', completedAt: at });
     if (!done.affected) throw new ConflictError(`calibration session ${id} is already complete`);
-    await recordAudit(m, actor.id, 'calibration.complete', `calibration:${id}`, { within: comparison?.within ?? null, decision: comparison?.acceptance.decision ?? null });
+    const record = await freezeRecord(m, { session, channelName: channel.name, fit, comparison, actor, at });
+    await recordAudit(m, actor.id, 'calibration.complete', `calibration:${id}`, {
+      within: comparison?.within ?? null, decision: comparison?.acceptance.decision ?? null, record: record.sequence, sha256: record.sha256,
+    });
   });
   const design = session.board.revision.design;
-  const channel = await sessionChannel(dataSource, session);
   try {
     await mailer.send(sessionCompleteMessage({
       to: design.owner.email, serialNumber: session.board.serialNumber, channelName: channel.name, designName: design.name,
@@ -158,5 +171,21 @@ export async function completeSession(dataSource: DataSource, mailer: Mailer, ac
     // The calibration stands; the notice is only a courtesy, so a mail failure is logged, not fatal.
     console.error('[mail] calibration notice not sent', err);
   }
+  return getSession(dataSource, id);
+}
+
+/**
+ * Moves a completed session back to draft so its points or fit can be corrected. Its records stay as they were;
+ * completing it again freezes a new record with the next sequence number.
+ */
+export async function reopenSession(dataSource: DataSource, actor: User, id: number): Promise<CalibrationSession> {
+  await dataSource.transaction(async (m) => {
+    const reopened = await m.getRepository(CalibrationSession).update({ id, state: 'complete' }, { state: 'draft', completedAt: null, updatedAt: new Date() });
+    if (!reopened.affected) {
+      await getSession(m, id);
+      throw new ConflictError(`calibration session ${id} is a draft already`);
+    }
+    await recordAudit(m, actor.id, 'calibration.reopen', `calibration:${id}`, {});
+  });
   return getSession(dataSource, id);
 }
