@@ -7,13 +7,38 @@ export interface CsvTable {
   /** Data rows keyed by header; `line` is the line number in the file (the header is line 1). */
   rows: { line: number; cells: Record<string, string> }[];
   delimiter: string;
+  /** Set when the file holds more data rows than the caller's maxRows; rows then stops at maxRows + 1. */
+  truncated?: boolean;
+}
+
+/**
+ * The file's non-blank rows, the header first. With maxRows, parsing stops one data row past it: enough to know
+ * the file is too long without reading the rest (papaparse's own preview counts blank lines, so it cannot tell).
+ */
+function parseRows(text: string, maxRows: number | undefined): { data: string[][]; delimiter: string } {
+  const settings = { skipEmptyLines: 'greedy' as const, delimitersToGuess: [',', ';', '\t'] };
+  if (maxRows === undefined) {
+    const parsed = Papa.parse<string[]>(text, settings);
+    return { data: parsed.data, delimiter: parsed.meta.delimiter };
+  }
+  const data: string[][] = [];
+  let delimiter = ',';
+  Papa.parse<string[]>(text, {
+    ...settings,
+    step: (row, parser) => {
+      delimiter = row.meta.delimiter;
+      data.push(row.data);
+      if (data.length > maxRows + 1) parser.abort();
+    },
+  });
+  return { data, delimiter };
 }
 
 /**
  * Decodes and parses an uploaded CSV with papaparse. Refuses, with the reason, what cannot be read as a
  * table: bytes that are not UTF-8, an empty file, a header with blank or repeated names.
  */
-export function readCsv(bytes: Buffer): CsvTable {
+export function readCsv(bytes: Buffer, options: { maxRows?: number } = {}): CsvTable {
   let text: string;
   try {
     text = new TextDecoder('utf-8', { fatal: true }).decode(bytes);
@@ -22,8 +47,8 @@ export function readCsv(bytes: Buffer): CsvTable {
   }
   text = text.replace(/^\uFEFF/, '');
   if (text.trim() === '') throw new BadRequestError('file is empty', { file: 'is empty' });
-  const parsed = Papa.parse<string[]>(text, { skipEmptyLines: 'greedy', delimitersToGuess: [',', ';', '\t'] });
-  const [header, ...body] = parsed.data;
+  const { data, delimiter } = parseRows(text, options.maxRows);
+  const [header, ...body] = data;
   if (!header || header.length === 0) throw new BadRequestError('file has no header line', { file: 'has no header' });
   const headers = header.map((h) => h.trim().toLowerCase());
   const blank = headers.findIndex((h) => h === '');
@@ -38,7 +63,8 @@ export function readCsv(bytes: Buffer): CsvTable {
     line: i + 2,
     cells: Object.fromEntries(headers.map((h, j) => [h, (cells[j] ?? '').trim()])),
   }));
-  return { headers, rows, delimiter: parsed.meta.delimiter };
+  const truncated = options.maxRows !== undefined && rows.length > options.maxRows;
+  return { headers, rows, delimiter, ...(truncated ? { truncated } : {}) };
 }
 
 /**

@@ -71,8 +71,21 @@ export const calibrationPointSchema = z.strictObject({
 }).refine((p) => !p.excluded || p.excludedReason.trim().length > 0, { error: 'give a reason for excluding a point', path: ['excludedReason'] });
 export type CalibrationPointBody = z.infer<typeof calibrationPointSchema>;
 
+/**
+ * Most points one calibration session holds, on every path (table save, CSV preview and import). A bench
+ * calibration uses tens; the limit bounds what one request stores, fits and sends back.
+ */
+export const MAX_POINTS_PER_SESSION = 500;
+
+/** The refusal when a session would hold more than the limit, naming both counts. */
+export const pointsLimitMessage = (count: number): string =>
+  `a session holds at most ${MAX_POINTS_PER_SESSION} points; this would make ${count}`;
+
 export const pointsReplaceSchema = z.strictObject({
-  points: z.array(calibrationPointSchema).max(2000, { error: 'at most 2000 points per session' }),
+  // The length is checked before any point is read, so an oversized table costs no more than the limit.
+  points: z.array(z.unknown(), { error: 'points must be a list' })
+    .max(MAX_POINTS_PER_SESSION, { error: (issue) => pointsLimitMessage((issue.input as unknown[]).length) })
+    .pipe(z.array(calibrationPointSchema)),
   /** The session's pointsVersion the table was edited from; a stale one is refused. */
   baseVersion: baseVersionSchema,
 });

@@ -1,5 +1,5 @@
 import type { CalibrationPointBody, CsvMapping } from '../../../shared/schemas/calibration.js';
-import { calibrationPointSchema } from '../../../shared/schemas/calibration.js';
+import { calibrationPointSchema, MAX_POINTS_PER_SESSION, pointsLimitMessage } from '../../../shared/schemas/calibration.js';
 import type { CaptureDefinition } from '../../../shared/schemas/chain.js';
 import type { CsvTable } from '../../common/csv.js';
 import { BadRequestError } from '../../common/errors.js';
@@ -87,4 +87,26 @@ export function previewPointsCsv(table: CsvTable, mapping: CsvMapping | null, ca
   });
   const validCount = rows.filter((r) => r.point).length;
   return { ...base, rows, problems, validCount, invalidCount: rows.length - validCount };
+}
+
+/** Line breaks in the file, counted on the bytes without parsing them, so a refusal can say how long the file is. */
+function linesIn(bytes: Buffer): number {
+  let lines = 0;
+  for (let at = bytes.indexOf(10); at !== -1; at = bytes.indexOf(10, at + 1)) lines++;
+  return bytes.length > 0 && bytes[bytes.length - 1] !== 10 ? lines + 1 : lines;
+}
+
+/**
+ * Refuses, before any row is checked, a file that would take the session past the points limit: the session's
+ * stored points plus every data row of the file (read with readCsv's maxRows, so a long file is not parsed to the end).
+ */
+export function assertCsvWithinLimit(table: CsvTable, bytes: Buffer, storedPoints: number): void {
+  if (table.truncated) {
+    const message = `the file has more than ${MAX_POINTS_PER_SESSION} data rows (${linesIn(bytes)} lines); a session holds at most ${MAX_POINTS_PER_SESSION} points`;
+    throw new BadRequestError(message, { file: `more than ${MAX_POINTS_PER_SESSION} data rows` });
+  }
+  const total = storedPoints + table.rows.length;
+  if (total > MAX_POINTS_PER_SESSION) {
+    throw new BadRequestError(`${pointsLimitMessage(total)} (${storedPoints} stored and ${table.rows.length} rows in the file)`, { file: pointsLimitMessage(total) });
+  }
 }
