@@ -6,3 +6,4 @@ export type { CoverageInterval } from './sorted-quantile.js';
 export { effectiveDegreesOfFreedom } from './welch-satterthwaite.js';
 export type { UncertaintyContribution } from './welch-satterthwaite.js';
 export { clopperPearsonUpper, clopperPearsonLower, trialsToShow } from './clopper-pearson.js';
+export { radixSortFloat64 } from './radix-sort.js';
