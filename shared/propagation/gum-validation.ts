@@ -65,3 +65,6 @@ export function overallGumAgreement(validations: readonly Pick<GumValidation, 'v
   if (validations.some((v) => v.verdict === 'disagrees')) return 'disagrees';
   return validations.every((v) => v.verdict === 'agrees') ? 'agrees' : 'cannot-tell';
 }
+
+/** How the product words each outcome of the check, on the page and in the report. */
+export const GUM_AGREEMENT_WORDS: Record<GumAgreement, string> = { agrees: 'agrees', disagrees: 'differs', 'cannot-tell': 'cannot tell yet' };

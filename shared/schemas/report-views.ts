@@ -1,3 +1,4 @@
+import type { GumAgreement } from '../propagation/gum-validation.js';
 import type { PersonRef } from './design-views.js';
 import type { RevisionState } from './designs.js';
 import type { MarginInputs, MarginStudyResult } from './margin.js';
@@ -42,6 +43,8 @@ export interface ReportUncertaintyChannel {
   trials: number;
   coverageProbability: number;
   gumAdequate: boolean;
+  /** The JCGM 101 §8 check over the channel's voltages; absent in reports of studies stored before it had three outcomes. */
+  gumAgreement?: GumAgreement;
   points: {
     voltageV: number;
     monteCarloMeanV: number;

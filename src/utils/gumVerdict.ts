@@ -5,4 +5,9 @@ export function gumVerdictOf(v: Pick<GumValidation, 'adequate'> & { verdict?: Gu
   return v.verdict ?? (v.adequate ? 'agrees' : 'disagrees');
 }
 
-export const GUM_VERDICT_WORDS: Record<GumAgreement, string> = { agrees: 'agrees', disagrees: 'differs', 'cannot-tell': 'cannot tell yet' };
+export { GUM_AGREEMENT_WORDS as GUM_VERDICT_WORDS } from '@shared/propagation/gum-validation';
+
+/** A report channel's check over all its voltages; reports of older studies only carry the yes/no. */
+export function gumAgreementOf(channel: { gumAdequate: boolean; gumAgreement?: GumAgreement }): GumAgreement {
+  return channel.gumAgreement ?? (channel.gumAdequate ? 'agrees' : 'disagrees');
+}

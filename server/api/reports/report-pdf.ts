@@ -1,5 +1,6 @@
 import type { MarginCriterion, MarginStudyResult } from '../../../shared/schemas/margin.js';
 import { formatEng } from '../../../shared/units/index.js';
+import { GUM_AGREEMENT_WORDS } from '../../../shared/propagation/gum-validation.js';
 import { ratioChart, ratioHistogram } from './pdf-charts.js';
 import { COLOURS, PdfWriter } from './pdf-layout.js';
 import type { ReviewReport } from './reports.service.js';
@@ -109,7 +110,7 @@ function uncertaintySection(pdf: PdfWriter, report: ReviewReport): void {
       c.points.map((p) => [formatEng(p.voltageV, 'V'), formatEng(p.monteCarloMeanV, 'V'), `${formatEng(p.monteCarloIntervalV.low, 'V')} to ${formatEng(p.monteCarloIntervalV.high, 'V')}`,
         `±${formatEng(p.gumExpandedUncertaintyV, 'V')}`, `±${formatEng(p.worstCaseMaxAbsV, 'V')}`]),
     );
-    pdf.paragraph(`Uncertainty budget at ${formatEng(c.budget.voltageV, 'V')}: u = ${formatEng(c.budget.combinedStandardUncertaintyV, 'V')}, U = ±${formatEng(c.budget.expandedUncertaintyV, 'V')} (k = ${c.budget.coverageFactor.toFixed(2)}); GUM ${c.gumAdequate ? 'validated' : 'not validated'} by the Monte Carlo.`, { size: 8.5 });
+    pdf.paragraph(`Uncertainty budget at ${formatEng(c.budget.voltageV, 'V')}: u = ${formatEng(c.budget.combinedStandardUncertaintyV, 'V')}, U = ±${formatEng(c.budget.expandedUncertaintyV, 'V')} (k = ${c.budget.coverageFactor.toFixed(2)}); GUM against Monte Carlo (JCGM 101 §8): ${GUM_AGREEMENT_WORDS[c.gumAgreement ?? (c.gumAdequate ? 'agrees' : 'disagrees')]}.`, { size: 8.5 });
     pdf.table(
       [{ header: 'Input', width: 160 }, { header: 'Distribution', width: 70 }, { header: 'u(x)', width: 80, align: 'right' }, { header: 'c', width: 70, align: 'right' }, { header: 'u(y)', width: 65, align: 'right' }, { header: 'Share', width: pdf.width - 445, align: 'right' }],
       c.budget.rows.map((b) => [b.order === 2 ? `${b.label} (second order)` : `${b.label} (${b.where})`, b.distribution, `${b.standardUncertainty.toPrecision(3)} ${b.unit}`, b.sensitivity.toPrecision(3),

@@ -1,5 +1,6 @@
 import { In, type DataSource } from 'typeorm';
 import type { ChannelStudy } from '../../../shared/propagation/index.js';
+import { overallGumAgreement } from '../../../shared/propagation/gum-validation.js';
 import { REVISION_STATE_LABELS } from '../../../shared/schemas/designs.js';
 import type { MarginInputs, MarginStudyResult } from '../../../shared/schemas/margin.js';
 import { AuditEvent } from '../../entities/AuditEvent.js';
@@ -39,6 +40,8 @@ function uncertaintySection(run: AnalysisRun, current: boolean): RunHeader & { c
       const variance = worst.gum.combinedStandardUncertainty ** 2;
       return {
         key, name, trials: study.trials, coverageProbability: study.coverageProbability, gumAdequate: study.gumAdequate,
+        // studies stored before the three-way check carry only `adequate`
+        gumAgreement: overallGumAgreement(study.points.map((p) => ({ verdict: p.gumValidation.verdict ?? (p.gumValidation.adequate ? 'agrees' : 'disagrees') }))),
         counterOverflowV: study.points.filter((p) => p.counterOverflow).map((p) => p.voltageV),
         points: study.points.map((p) => ({
           voltageV: p.voltageV,
