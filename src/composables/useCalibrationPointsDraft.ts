@@ -112,5 +112,8 @@ export function useCalibrationPointsDraft(stored: Ref<StoredPoint[]>) {
     return bodies.every((b) => b !== null) ? (bodies as PointWrite[]) : null;
   }
 
-  return { rows, errorsOf, invalidCount, dirty, add, remove, reset, restore, body };
+  /** The rows as last loaded or saved, in the draft's text form. */
+  const savedRows = () => stored.value.map(fromStoredQuiet);
+
+  return { rows, errorsOf, invalidCount, dirty, add, remove, reset, restore, savedRows, body };
 }

@@ -6,6 +6,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { openBrowserRig, type BrowserRig } from '../helpers/browser.js';
 import { ARTIFACTS_DIR } from '../helpers/built-client.js';
 import { hashPassword } from '../../server/common/passwords.js';
+import { CalibrationPoint } from '../../server/entities/CalibrationPoint.js';
 import { Channel } from '../../server/entities/Channel.js';
 import { MarginInputsRecord } from '../../server/entities/MarginInputsRecord.js';
 import { User } from '../../server/entities/User.js';
@@ -134,5 +135,50 @@ describe('two designers saving the same draft revision', () => {
     await expect.poll(async () => (await rig.app.dataSource.getRepository(MarginInputsRecord).findOneBy({ revisionId: sharedRevisionId }))?.version).toBe(2); // two saves, one version step each (the rule under test)
     const record = await rig.app.dataSource.getRepository(MarginInputsRecord).findOneByOrFail({ revisionId: sharedRevisionId });
     expect(record.inputs).toMatchObject({ timeoutS: 6, prechargeOhm: 2200 }); // the first designer's timeout and the second's resistance
+  }, 120_000);
+
+  it('refuses an exclusion made on calibration points someone else changed, and keeps it to put back', async () => {
+    const tester = await rig.app.signIn('tester@example.test', 'tallyvolt-tester');
+    const board = (await tester.post('/api/boards').send({ serialNumber: 'SHARED-1', revisionId: sharedRevisionId, buildDate: '2026-11-28' })).body.board;
+    const session = (await tester.post(`/api/boards/${board.id}/sessions`).send({
+      channelKey: 'pack', performedOn: '2026-11-29', ambientC: 23, reference: { description: 'bench HV meter, 1000 V range', percentOfReading: 0.05, plusVolts: 0.1 },
+    })).body.session;
+    const points = [100, 200, 300, 400].map((v) => ({ appliedV: v, frequencyHz: 500 + 80 * v })); // invented bench pairs
+    expect((await tester.put(`/api/calibrations/${session.id}/points`).send({ points, baseVersion: session.pointsVersion })).status).toBe(200);
+
+    const first = rig.page;
+    const other = second.pages()[0];
+    for (const [page, email, password] of [[first, 'tester@example.test', 'tallyvolt-tester'], [other, 'admin@example.test', 'tallyvolt-admin']] as const) {
+      await page.getByRole('button', { name: 'Sign out' }).click();
+      await signIn(page, rig.baseUrl, email, password);
+      await page.goto(`${rig.baseUrl}/calibrations/${session.id}`);
+      await expect.poll(() => page.getByRole('button', { name: 'Exclude point 4' }).isVisible(), { timeout: 20_000 }).toBe(true);
+    }
+    const exclude = async (page: Page, n: number, reason: string) => {
+      await page.getByRole('button', { name: `Exclude point ${n}` }).click();
+      const dialog = page.getByRole('dialog', { name: `Exclude point ${n}` });
+      await dialog.getByLabel('Reason for excluding').fill(reason);
+      await dialog.getByRole('button', { name: 'Exclude point' }).click();
+    };
+
+    await exclude(first, 2, 'Reference meter changed range');
+    await expect.poll(() => first.getByRole('button', { name: 'Restore point 2' }).isVisible()).toBe(true);
+
+    await exclude(other, 3, 'Lead slipped off the test point');
+    const notice = other.getByRole('alert').filter({ hasText: 'someone else saved first' });
+    await expect.poll(() => notice.isVisible()).toBe(true);
+    expect(await notice.innerText()).toMatch(/Ivo Kestrand saved the points of this session at .* while you were editing/);
+
+    await other.getByRole('button', { name: 'Load their version' }).click();
+    const kept = other.getByRole('region', { name: /Your unsaved points/ });
+    await expect.poll(() => kept.isVisible()).toBe(true);
+    expect(await kept.getByRole('row', { name: /Point 3/ }).innerText()).toMatch(/excluded: Lead slipped off the test point/);
+    await expect.poll(() => other.getByRole('button', { name: 'Restore point 2' }).isVisible()).toBe(true); // the tester's exclusion is loaded
+    await other.screenshot({ path: path.join(ARTIFACTS_DIR, 'conflict-points-kept.png'), fullPage: true });
+
+    await other.getByRole('button', { name: 'Put my changes back' }).click();
+    await other.getByRole('button', { name: 'Save points' }).click();
+    await expect.poll(async () => (await rig.app.dataSource.getRepository(CalibrationPoint).find({ where: { sessionId: session.id }, order: { position: 'ASC' } }))
+      .map((p) => p.excluded)).toEqual([false, true, true, false]); // the tester's exclusion of point 2 and the admin's of point 3
   }, 120_000);
 });
