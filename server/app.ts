@@ -51,7 +51,7 @@ export function createApp(deps: AppDeps): BuiltApp {
   app.use('/api', sameOriginOnly);
   const api = Router();
   const routeTable: RouteTableRow[] = [
-    ...mountRoutes(api, '/auth', authRoutes(passport, signInLimits(config.rateLimits))),
+    ...mountRoutes(api, '/auth', authRoutes(passport, signInLimits(config.rateLimits, config.signInDelay))),
     ...mountRoutes(api, '/users', usersRoutes(deps)),
     ...mountRoutes(api, '/invites', invitesRoutes(deps, inviteLimit(config.rateLimits))),
     ...mountRoutes(api, '/outbox', outboxRoutes(deps)),

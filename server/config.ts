@@ -2,6 +2,7 @@ import os from 'node:os';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { readPublicUrl } from './common/public-url.js';
+import { DEFAULT_SIGN_IN_DELAY, type SignInDelayOptions } from './common/sign-in-delay.js';
 
 export const projectRoot = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
 
@@ -16,6 +17,8 @@ export interface AppConfig {
   sessionSecret: string | null;
   trustProxy: boolean;
   rateLimits: boolean;
+  /** Per-account sign-in delay after failures (SIGN_IN_DELAY_MS doubling up to SIGN_IN_DELAY_CAP_MS); on with rateLimits. */
+  signInDelay: SignInDelayOptions;
   distDir: string;
   /** Worker threads for studies (default: one per core but one). */
   studyThreads: number;
@@ -42,6 +45,10 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
     sessionSecret: env.SESSION_SECRET || null,
     trustProxy: flag(env.TRUST_PROXY, false),
     rateLimits: flag(env.RATE_LIMITS, true),
+    signInDelay: {
+      firstMs: Math.max(1, Number(env.SIGN_IN_DELAY_MS) || DEFAULT_SIGN_IN_DELAY.firstMs),
+      capMs: Math.max(1, Number(env.SIGN_IN_DELAY_CAP_MS) || DEFAULT_SIGN_IN_DELAY.capMs),
+    },
     distDir: env.DIST_DIR ?? path.join(projectRoot, 'dist'),
     busyTimeoutMs: Math.max(0, Number(env.DB_BUSY_TIMEOUT_MS) || 5000),
     // One core stays free for the event loop, so requests are answered while a study runs.

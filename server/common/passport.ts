@@ -2,7 +2,7 @@ import passport from 'passport';
 import { Strategy as LocalStrategy } from 'passport-local';
 import type { DataSource } from 'typeorm';
 import { User } from '../entities/User.js';
-import { checkPassword, DUMMY_HASH } from './passwords.js';
+import { checkPassword, dummyHash, hashPassword } from './passwords.js';
 import { userCacheFor } from './user-cache.js';
 
 /** One message for unknown e-mail, wrong password and deactivated account, so none can be told apart. */
@@ -16,8 +16,10 @@ export function configurePassport(dataSource: DataSource): passport.PassportStat
     new LocalStrategy({ usernameField: 'email', passwordField: 'password' }, async (email, password, done) => {
       try {
         const user = await users.findOneBy({ email: email.trim().toLowerCase() });
-        const ok = await checkPassword(password, user?.passwordHash ?? DUMMY_HASH);
+        // One comparison at the real cost on every path (unknown, wrong, deactivated), so timing tells nothing.
+        const { ok, stale } = await checkPassword(password, user?.passwordHash ?? (await dummyHash()));
         if (!user || !ok || !user.active) return done(null, false, { message: SIGN_IN_FAILED });
+        if (stale) await users.update({ id: user.id }, { passwordHash: await hashPassword(password) });
         done(null, user);
       } catch (err) {
         done(err);

@@ -1,11 +1,13 @@
 import { rateLimit, ipKeyGenerator } from 'express-rate-limit';
 import type { Request, RequestHandler } from 'express';
+import { DEFAULT_SIGN_IN_DELAY, SignInDelay, type SignInDelayOptions } from './sign-in-delay.js';
 
 const FIFTEEN_MINUTES_MS = 15 * 60 * 1000;
 
 export interface SignInLimits {
   perIp: RequestHandler;
-  perAccount: RequestHandler;
+  /** Growing per-account wait after failures; null when rate limits are off. */
+  delay: SignInDelay | null;
 }
 
 const passThrough: RequestHandler = (_req, _res, next) => next();
@@ -23,17 +25,24 @@ function limiter(limit: number, message: string, keyGenerator: (req: Request) =>
 }
 
 /**
- * Sign-in is limited per client address (all attempts) and per account (failed attempts only), so one
- * address cannot spray many accounts and many addresses cannot hammer one account.
+ * Sign-in is limited per client address (all attempts), so one address cannot spray many accounts, and per
+ * account by a growing delay rather than a lockout, so many addresses cannot hammer one account yet no stranger
+ * can lock its owner out.
  */
-export function signInLimits(enabled: boolean, perIp = 30, perAccount = 5): SignInLimits {
-  if (!enabled) return { perIp: passThrough, perAccount: passThrough };
+export function signInLimits(enabled: boolean, delay: SignInDelayOptions = DEFAULT_SIGN_IN_DELAY, perIp = 30): SignInLimits {
+  if (!enabled) return { perIp: passThrough, delay: null };
   return {
     perIp: limiter(perIp, 'too many sign-in attempts from this address; wait 15 minutes and try again',
       (req) => ipKeyGenerator(req.ip ?? 'unknown'), false),
-    perAccount: limiter(perAccount, 'too many failed sign-ins for this account; wait 15 minutes and try again',
-      (req) => `account:${String(req.body?.email ?? '').trim().toLowerCase()}`, true),
+    delay: new SignInDelay(delay),
   };
+}
+
+/** Password-reset requests and completions are limited per address, like sign-in. */
+export function passwordResetLimit(enabled: boolean, limit = 10): RequestHandler {
+  if (!enabled) return passThrough;
+  return limiter(limit, 'too many password-reset attempts from this address; wait 15 minutes and try again',
+    (req) => ipKeyGenerator(req.ip ?? 'unknown'), false);
 }
 
 /** Invitation acceptance is limited per address: tokens are long, but guessing should still be slow. */

@@ -1,4 +1,4 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { createTestApp, type TestApp } from '../helpers/test-app.js';
 import { DEMO_USERS } from '../../server/seed/demo-team.js';
 
@@ -76,21 +76,37 @@ describe('sign-in', () => {
   });
 });
 
-describe('sign-in rate limit', () => {
+describe('sign-in delay per account', () => {
   let t: TestApp;
-  beforeAll(async () => { t = await createTestApp(); });
-  afterAll(async () => { await t.close(); });
+  // Waits far longer than a request takes; the test moves the clock past them instead of sitting them out.
+  beforeAll(async () => { t = await createTestApp({ signInDelay: { firstMs: 10_000, capMs: 40_000 } }); });
+  afterAll(async () => { vi.useRealTimers(); await t.close(); });
 
-  it('answers 429 with a message after five failed attempts on one account', async () => {
-    const statuses: number[] = [];
-    for (let i = 0; i < 6; i++) {
-      statuses.push((await t.agent().post('/api/auth/sign-in').send({ email: 'lead@example.test', password: `guess ${i}` })).status);
+  const signIn = (email: string, password: string) => t.agent().post('/api/auth/sign-in').send({ email, password });
+  const passTime = (ms: number) => vi.setSystemTime(Date.now() + ms);
+
+  it('makes the next try wait after a failure, says how long, and never locks the owner out', async () => {
+    vi.useFakeTimers({ toFake: ['Date'] });
+    for (let i = 0; i < 8; i++) {
+      expect((await signIn('lead@example.test', `guess ${i}`)).status).toBe(401);
+      const early = await signIn('lead@example.test', 'tallyvolt-lead');
+      expect(early.status).toBe(429);
+      expect(early.body.error).toMatch(/wait \d+ s/);
+      expect(Number(early.headers['retry-after'])).toBeGreaterThanOrEqual(1);
+      passTime(45_000); // past the cap set above
     }
-    expect(statuses).toEqual([401, 401, 401, 401, 401, 429]);
-    const blocked = await t.agent().post('/api/auth/sign-in').send({ email: 'lead@example.test', password: 'tallyvolt-lead' });
-    expect(blocked.status).toBe(429);
-    expect(blocked.body.error).toMatch(/too many failed sign-ins/);
-    // Another account from the same address is still allowed.
-    expect((await t.agent().post('/api/auth/sign-in').send({ email: designer.email, password: designer.password })).status).toBe(200);
+    // Eight wrong guesses later the right password still signs in once the wait is over.
+    expect((await signIn('lead@example.test', 'tallyvolt-lead')).status).toBe(200);
+    // and success clears the count
+    expect((await signIn('lead@example.test', 'another guess')).status).toBe(401);
+    vi.useRealTimers();
+  });
+
+  it('delays an unknown e-mail exactly as a real one, and leaves other accounts alone', async () => {
+    expect((await signIn('nobody@example.test', 'a guess')).status).toBe(401);
+    const early = await signIn('nobody@example.test', 'a guess');
+    expect(early.status).toBe(429);
+    expect(early.body.error).toMatch(/wait \d+ s/);
+    expect((await signIn(designer.email, designer.password)).status).toBe(200);
   });
 });

@@ -6,19 +6,29 @@ import { defineRoute, type RouteSpec } from '../../common/routes.js';
 import type { User } from '../../entities/User.js';
 import { SIGN_IN_FAILED } from '../../common/passport.js';
 import { SESSION_COOKIE } from '../../common/session.js';
+import { signInTooSoon } from '../../common/sign-in-delay.js';
 import { toPublicUser } from '../users/users.mapper.js';
 
 export function authRoutes(passport: PassportStatic, limits: SignInLimits): RouteSpec[] {
   return [
     defineRoute({
       method: 'post', path: '/sign-in', access: 'public', body: signInSchema,
-      before: [limits.perIp, limits.perAccount],
+      before: [limits.perIp],
       handler: ({ body, req, res }) =>
         new Promise<void>((resolve, reject) => {
+          const wait = limits.delay?.waitSeconds(body.email) ?? 0;
+          if (wait > 0) {
+            res.set('Retry-After', String(wait));
+            return reject(signInTooSoon(wait));
+          }
           req.body = body;
           passport.authenticate('local', (err: unknown, user: User | false) => {
             if (err) return reject(err);
-            if (!user) return reject(new UnauthorisedError(SIGN_IN_FAILED));
+            if (!user) {
+              limits.delay?.failed(body.email);
+              return reject(new UnauthorisedError(SIGN_IN_FAILED));
+            }
+            limits.delay?.succeeded(body.email);
             // passport ≥ 0.6 regenerates the session here, so a planted session id is useless.
             req.logIn(user, (loginErr) => {
               if (loginErr) return reject(loginErr);
