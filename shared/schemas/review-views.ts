@@ -39,4 +39,6 @@ export interface ApprovalCheck {
   /** Why this person may not approve (they created, edited, submitted or reopened it), or null. */
   barred: string | null;
   minJustificationChars: number;
+  /** Who took part in the revision's work and what each did; none of them may approve it. */
+  contributors: { id: number; displayName: string | null; did: string[] }[];
 }

@@ -84,6 +84,8 @@ describe('who may approve a revision, and what an approval against failing check
     expect((await designer.post(`/api/revisions/${revisionId}/submit`)).status).toBe(200);
     const check = (await admin.get(`/api/revisions/${revisionId}/approval-check`)).body;
     expect(check.barred).toMatch(/^you edited revision A /);
+    // The review shows who did what: the designer created, studied and submitted it; the admin edited its channels.
+    expect(check.contributors.map((c: { did: string[] }) => c.did)).toEqual([['created it', 'ran a study as a draft', 'submitted it'], ['edited the channels']]);
     const own = await approve(admin, revisionId);
     expect(own.status).toBe(403);
     expect(own.body.error).toMatch(/^you edited revision A /);
@@ -197,7 +199,8 @@ describe('who may approve a revision, and what an approval against failing check
     await study(designer, revisionId, 'margin');
     expect((await designer.post(`/api/revisions/${revisionId}/submit`)).status).toBe(200);
     const check = (await lead.get(`/api/revisions/${revisionId}/approval-check`)).body;
-    expect(check).toEqual({ failing: [], barred: null, minJustificationChars: 20 });
+    expect(check).toMatchObject({ failing: [], barred: null, minJustificationChars: 20 });
+    expect(check.contributors).toEqual([{ id: expect.any(Number), displayName: expect.any(String), did: ['created it', 'changed the margin inputs', 'ran a study as a draft', 'submitted it'] }]);
     const approved = await approve(lead, revisionId, {});
     expect(approved.status).toBe(200);
     const approval = ((await lead.get(`/api/revisions/${revisionId}/history`)).body.items as { action: string; detail: object }[]).find((e) => e.action === 'revision.approve')!;

@@ -94,6 +94,7 @@ describe('the review of a revision in the browser', () => {
     await page.locator('.ratio-chart').screenshot({ path: path.join(ARTIFACTS_DIR, 'review-lead-ratio-chart.png') });
 
     await page.getByLabel('Comment for the designer').fill('Accepted for the bench build; the missing-capacitance case is covered by the bench check.');
+    await expect.poll(() => page.getByText(/Who worked on revision B: .*submitted it/).isVisible()).toBe(true);
     const failingNow = page.getByRole('list', { name: 'What fails now' });
     await expect.poll(() => failingNow.innerText()).toContain('30 % of the link capacitance missing is not caught');
     await page.getByRole('button', { name: 'Approve revision B' }).click();

@@ -3,7 +3,7 @@ import type { RevisionState } from '../../../shared/schemas/designs.js';
 import { REVISION_STATE_LABELS } from '../../../shared/schemas/designs.js';
 import { MIN_JUSTIFICATION_CHARS, type ApproveBody, type ReviewListQuery } from '../../../shared/schemas/reviews.js';
 import { acknowledgesExactly, failingChecks } from './approval-checks.js';
-import { approvalBar } from './revision-authors.js';
+import { approvalBar, revisionContributors } from './revision-authors.js';
 import { recordAudit } from '../../common/audit.js';
 import { BadRequestError, ConflictError, ForbiddenError } from '../../common/errors.js';
 import type { Mailer, MailMessage } from '../../common/mail.js';
@@ -94,7 +94,10 @@ export async function submitForReview(dataSource: DataSource, mailer: Mailer, ac
 /** What the approve form shows before asking: the failing checks and whether this person may approve. */
 export async function approvalCheck(dataSource: DataSource, actor: User, revisionId: number): Promise<ApprovalCheck> {
   const revision = await getRevision(dataSource, revisionId);
-  return { failing: await failingChecks(dataSource, revision), barred: await approvalBar(dataSource, revision, actor.id), minJustificationChars: MIN_JUSTIFICATION_CHARS };
+  return {
+    failing: await failingChecks(dataSource, revision), barred: await approvalBar(dataSource, revision, actor.id),
+    minJustificationChars: MIN_JUSTIFICATION_CHARS, contributors: await revisionContributors(dataSource, revision),
+  };
 }
 
 /**

@@ -1,6 +1,7 @@
-import type { DataSource } from 'typeorm';
+import { In, type DataSource } from 'typeorm';
 import { AuditEvent } from '../../entities/AuditEvent.js';
 import type { Revision } from '../../entities/Revision.js';
+import { User } from '../../entities/User.js';
 
 /** What each authoring action reads as in a refusal ("you … on …"). */
 const AUTHORING: Record<string, string> = {
@@ -15,6 +16,29 @@ const AUTHORING: Record<string, string> = {
 const STATE_AFTER: Record<string, string> = {
   'revision.submit': 'in_review', 'revision.approve': 'approved', 'revision.request-changes': 'changes_requested', 'revision.reopen': 'draft',
 };
+
+/** Short words for the list of who took part ("created, edited, submitted"). */
+const PART: Record<string, string> = {
+  'revision.start': 'started it', 'revision.edit': 'edited the channels', 'margin.inputs': 'changed the margin inputs',
+  'revision.submit': 'submitted it', 'revision.reopen': 'reopened it',
+};
+
+/**
+ * Everyone who took part in the revision's work, with what they did, in the order they first did it: the
+ * people approvalBar turns away.
+ */
+export async function revisionContributors(dataSource: DataSource, revision: Revision): Promise<{ id: number; displayName: string | null; did: string[] }[]> {
+  const events = await dataSource.getRepository(AuditEvent).find({ where: { subject: `revision:${revision.id}` }, order: { id: 'ASC' } });
+  const parts = new Map<number, Set<string>>([[revision.createdById, new Set(['created it'])]]);
+  let state = 'draft';
+  for (const e of events) {
+    const part = PART[e.action] ?? (e.action === 'study.request' && state === 'draft' ? 'ran a study as a draft' : null);
+    if (part && e.actorId !== null) parts.set(e.actorId, (parts.get(e.actorId) ?? new Set()).add(part));
+    state = STATE_AFTER[e.action] ?? state;
+  }
+  const people = await dataSource.getRepository(User).findBy({ id: In([...parts.keys()]) });
+  return [...parts].map(([id, did]) => ({ id, displayName: people.find((p) => p.id === id)?.displayName ?? null, did: [...did] }));
+}
 
 const when = (at: Date) => `${new Date(at).toISOString().slice(0, 16).replace('T', ' ')} UTC`;
 
