@@ -18,6 +18,39 @@ export interface ChannelStudyTask {
   port?: MessagePort;
 }
 
+/**
+ * Blocks [firstBlock, firstBlock + blockCount) of a channel's fixed-size run, written into the run's
+ * shared output-major array, so threads split one channel with no merge copy.
+ */
+export interface ChannelBlocksTask {
+  kind: 'channel-blocks';
+  channel: ChannelDefinition;
+  gridPoints: number;
+  seed: number;
+  totalTrials: number;
+  firstBlock: number;
+  blockCount: number;
+  values: SharedArrayBuffer;
+  port?: MessagePort;
+}
+
+/** Summary of some outputs of a simulated run held in a shared array (sorted where they lie). */
+export interface ChannelSummaryTask {
+  kind: 'channel-summary';
+  values: SharedArrayBuffer;
+  totalTrials: number;
+  outputs: number[];
+  coverageProbability: number;
+}
+
+/** GUM, worst case and counter overflow of a channel, computed while other threads simulate. */
+export interface ChannelAnalyticTask {
+  kind: 'channel-analytic';
+  channel: ChannelDefinition;
+  gridPoints: number;
+  coverageProbability: number;
+}
+
 /** One revision's margin study (the pre-charge Monte Carlo with its fault cases), in one thread. */
 export interface MarginStudyTask {
   kind: 'margin';
@@ -31,4 +64,9 @@ export interface FaultTask {
   mode: 'throw' | 'exit';
 }
 
-export type StudyTask = ChannelStudyTask | MarginStudyTask | FaultTask;
+/** Does nothing: run once per thread at start so each thread has loaded the engine before a study. */
+export interface WarmTask {
+  kind: 'warm';
+}
+
+export type StudyTask = ChannelStudyTask | ChannelBlocksTask | ChannelSummaryTask | ChannelAnalyticTask | MarginStudyTask | FaultTask | WarmTask;

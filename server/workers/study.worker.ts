@@ -1,5 +1,9 @@
 import os from 'node:os';
-import { channelStudy } from '../../shared/propagation/channel-study.js';
+import { channelAnalytic, channelStudy } from '../../shared/propagation/channel-study.js';
+import { compileChannel } from '../../shared/chain/compile.js';
+import { channelKernel } from '../../shared/propagation/channel-kernel.js';
+import { simulateBlocksInto } from '../../shared/propagation/simulate.js';
+import { summariseValues } from '../../shared/propagation/summary.js';
 import { computeMarginStudy } from '../api/margin/margin-study.js';
 import { ADAPTIVE_MAX_TRIALS, type StudyTask } from './study-task.js';
 
@@ -17,6 +21,13 @@ export default function runStudyTask(task: StudyTask) {
     if (task.mode === 'exit') process.exit(3);
     throw new Error('fault task asked to fail');
   }
+  if (task.kind === 'warm') return null;
+  if (task.kind === 'channel-summary') {
+    return task.outputs.map((o) => summariseValues(
+      new Float64Array(task.values, o * task.totalTrials * 8, task.totalTrials), task.coverageProbability, 40, true,
+    ));
+  }
+  if (task.kind === 'channel-analytic') return channelAnalytic(task.channel, task.gridPoints, task.coverageProbability);
   let last = -1;
   const report = (progress: number) => {
     if (progress - last < 0.01 && progress < 1) return;
@@ -24,6 +35,14 @@ export default function runStudyTask(task: StudyTask) {
     task.port?.postMessage({ progress });
   };
   report(0);
+  if (task.kind === 'channel-blocks') {
+    const kernel = channelKernel(compileChannel(task.channel, task.gridPoints));
+    simulateBlocksInto(kernel, task.seed, task.totalTrials, task.firstBlock, task.blockCount, new Float64Array(task.values),
+      (done, count) => { if (done % 20 === 0) report(done / count); });
+    report(1);
+    task.port?.close();
+    return null;
+  }
   if (task.kind === 'margin') {
     const margin = computeMarginStudy(task.data, (f) => report(Math.min(0.99, f)));
     report(1);

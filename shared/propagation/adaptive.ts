@@ -127,7 +127,8 @@ export class AdaptiveMonteCarlo {
   /** Summaries from all h·M values (7.9.4 j). */
   result(stable: boolean): AdaptiveResult {
     if (this.chunks.length === 0) throw new Error('no batch has been added');
-    const summary = summariseChunks(this.chunks, this.options.seed, this.coverageProbability, this.options.histogramBins ?? 40);
+    // The batches are this run's own and are not read again once summarised
+    const summary = summariseChunks(this.chunks, this.options.seed, this.coverageProbability, this.options.histogramBins ?? 40, true);
     return {
       ...summary,
       stable,

@@ -64,7 +64,80 @@ function enclosingTrials(worst: ChannelWorstCasePoint, mc: OutputSummary): Chann
 function fixedRun(kernel: TrialKernel, seed: number, trials: number, p: number, report?: (fraction: number) => void) {
   const blocks = blockCountFor(trials);
   const chunk = simulateBlocks(kernel, seed, trials, 0, blocks, report && ((done) => { if (done % 20 === 0) report(done / blocks); }));
-  return { ...summariseChunks([chunk], seed, p), stable: true, stabilisation: [] as Stabilisation[] };
+  return { ...summariseChunks([chunk], seed, p, 40, true), stable: true, stabilisation: [] as Stabilisation[] };
+}
+
+/** The parts of a channel study that need no simulation: GUM, worst case and counter overflow per voltage. */
+export interface ChannelAnalytic {
+  gridV: number[];
+  gum: ChannelGumPoint[];
+  worstCase: ChannelWorstCasePoint[];
+  counterOverflow: boolean[];
+}
+
+/**
+ * GUM (JCGM 100), worst case and counter overflow of a channel at its evaluation voltages; a thread may
+ * compute these while others simulate.
+ * @param channel fully specified channel
+ * @param gridPoints evaluation voltages, integer ≥ 2
+ * @param coverageProbability p in (0, 1)
+ * @throws Error naming a bad channel input
+ * @example channelAnalytic(channel, 11, 0.95).worstCase[0].maxAbs
+ */
+export function channelAnalytic(channel: ChannelDefinition, gridPoints: number, coverageProbability: number): ChannelAnalytic {
+  const compiled = compileChannel(channel, gridPoints);
+  return analyticOf(compiled, coverageProbability);
+}
+
+function analyticOf(compiled: ReturnType<typeof compileChannel>, p: number): ChannelAnalytic {
+  return {
+    gridV: Array.from(compiled.gridV),
+    gum: channelGum(compiled, p),
+    worstCase: channelWorstCase(compiled),
+    counterOverflow: counterOverflow(compiled).map((o) => o.overflows),
+  };
+}
+
+/** What the Monte Carlo gave a channel study: a summary per voltage and how the run stopped. */
+export interface ChannelMonteCarlo {
+  trials: number;
+  stable: boolean;
+  outputs: OutputSummary[];
+  stabilisation: Stabilisation[];
+}
+
+/**
+ * Puts a channel study together from its Monte Carlo summaries and analytic parts (JCGM 101 §8 validation
+ * per voltage; worst case widened to the trials). The one-thread study and the pooled one both end here.
+ * @param analytic from {@link channelAnalytic}
+ * @param mc Monte Carlo summaries, one per evaluation voltage
+ * @param options seed, p, ndig and whether the run was adaptive
+ * @throws never
+ * @example assembleChannelStudy(analytic, mc, { seed: 7, coverageProbability: 0.95, ndig: 2, adaptive: false })
+ */
+export function assembleChannelStudy(
+  analytic: ChannelAnalytic,
+  mc: ChannelMonteCarlo,
+  options: { seed: number; coverageProbability: number; ndig: number; adaptive: boolean },
+): ChannelStudy {
+  const points = analytic.gridV.map((voltageV, g) => ({
+    voltageV,
+    monteCarlo: mc.outputs[g],
+    gum: analytic.gum[g],
+    worstCase: enclosingTrials(analytic.worstCase[g], mc.outputs[g]),
+    gumValidation: validateGum(analytic.gum[g], mc.outputs[g].symmetricInterval, options.ndig),
+    stabilisation: mc.stabilisation[g],
+    counterOverflow: analytic.counterOverflow[g],
+  }));
+  return {
+    seed: options.seed,
+    trials: mc.trials,
+    coverageProbability: options.coverageProbability,
+    adaptive: options.adaptive,
+    stable: mc.stable,
+    points,
+    gumAdequate: points.every((pt) => pt.gumValidation.adequate),
+  };
 }
 
 /**
@@ -106,25 +179,5 @@ export function channelStudy(channel: ChannelDefinition, options: ChannelStudyOp
       seed: options.seed, coverageProbability: p, ndig, maxTrials, onBatch: report && ((t) => report(Math.min(1, t / maxTrials))),
     })
     : fixedRun(kernel, options.seed, options.trials as number, p, report);
-  const gum = channelGum(compiled, p);
-  const worst = channelWorstCase(compiled);
-  const overflow = counterOverflow(compiled);
-  const points = Array.from(compiled.gridV, (voltageV, g) => ({
-    voltageV,
-    monteCarlo: mc.outputs[g],
-    gum: gum[g],
-    worstCase: enclosingTrials(worst[g], mc.outputs[g]),
-    gumValidation: validateGum(gum[g], mc.outputs[g].symmetricInterval, ndig),
-    stabilisation: mc.stabilisation[g],
-    counterOverflow: overflow[g].overflows,
-  }));
-  return {
-    seed: options.seed,
-    trials: mc.trials,
-    coverageProbability: p,
-    adaptive,
-    stable: mc.stable,
-    points,
-    gumAdequate: points.every((pt) => pt.gumValidation.adequate),
-  };
+  return assembleChannelStudy(analyticOf(compiled, p), mc, { seed: options.seed, coverageProbability: p, ndig, adaptive });
 }

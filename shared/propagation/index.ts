@@ -11,7 +11,7 @@ export type { OutputSummary } from './summary.js';
 export type { TrialKernel, TrialChunk } from './kernel.js';
 export { blockCountFor, trialsInBlock, planChunks } from './blocks.js';
 export type { BlockRange } from './blocks.js';
-export { simulateBlocks, mergeChunks, outputValues } from './simulate.js';
+export { simulateBlocks, simulateBlocksInto, mergeChunks, outputValues } from './simulate.js';
 export { runMonteCarlo, summariseChunks } from './monte-carlo.js';
 export type { MonteCarloOptions, MonteCarloResult } from './monte-carlo.js';
 export { AdaptiveMonteCarlo, runAdaptiveMonteCarlo } from './adaptive.js';
@@ -29,5 +29,5 @@ export type { WorstCaseResult, WorstCaseMethod, WorstCaseOptions } from './worst
 export { channelKernel } from './channel-kernel.js';
 export { channelErrorFunction, channelGum, channelWorstCase } from './channel-analytic.js';
 export type { ChannelGumPoint, ChannelWorstCasePoint } from './channel-analytic.js';
-export { channelStudy, simulateChannelChunk } from './channel-study.js';
-export type { ChannelStudy, ChannelStudyOptions, ChannelStudyPoint } from './channel-study.js';
+export { assembleChannelStudy, channelAnalytic, channelStudy, simulateChannelChunk } from './channel-study.js';
+export type { ChannelAnalytic, ChannelMonteCarlo, ChannelStudy, ChannelStudyOptions, ChannelStudyPoint } from './channel-study.js';

@@ -26,6 +26,8 @@ export interface MonteCarloResult {
  * @param seed seed the chunks were simulated with (echoed in the result)
  * @param coverageProbability p in (0, 1), default 0.95
  * @param histogramBins bins per histogram, default 40
+ * @param consume the caller hands the chunks over: each output is sorted where it lies (no copy), which
+ *   reorders the chunks' values; otherwise a single chunk is copied one output at a time
  * @throws if the chunks do not join or p is outside (0, 1)
  * @example summariseChunks([a, b], 7)
  */
@@ -34,11 +36,14 @@ export function summariseChunks(
   seed: number,
   coverageProbability = 0.95,
   histogramBins = 40,
+  consume = false,
 ): MonteCarloResult {
-  const merged = mergeChunks(chunks);
+  // A merge makes a fresh array, ours to sort; one chunk needs no merge
+  const merged = chunks.length === 1 ? chunks[0] : mergeChunks(chunks);
+  const inPlace = consume || chunks.length > 1;
   const outputs: OutputSummary[] = [];
   for (let o = 0; o < merged.outputCount; o++) {
-    outputs.push(summariseValues(outputValues(merged, o), coverageProbability, histogramBins));
+    outputs.push(summariseValues(outputValues(merged, o), coverageProbability, histogramBins, inPlace));
   }
   return { seed, trials: merged.trials, coverageProbability, outputs };
 }
@@ -54,5 +59,5 @@ export function summariseChunks(
  */
 export function runMonteCarlo(kernel: TrialKernel, options: MonteCarloOptions): MonteCarloResult {
   const chunk = simulateBlocks(kernel, options.seed, options.trials, 0, blockCountFor(options.trials));
-  return summariseChunks([chunk], options.seed, options.coverageProbability ?? 0.95, options.histogramBins ?? 40);
+  return summariseChunks([chunk], options.seed, options.coverageProbability ?? 0.95, options.histogramBins ?? 40, true);
 }

@@ -24,20 +24,59 @@ export function simulateBlocks(
   blockCount: number,
   onProgress?: (blocksDone: number, blockCount: number) => void,
 ): TrialChunk {
+  const trials = chunkTrials(totalTrials, firstBlock, blockCount);
+  const values = new Float64Array(trials * kernel.outputCount);
+  writeBlocks(kernel, seed, firstBlock, blockCount, trials, values, trials, 0, onProgress);
+  return { firstBlock, blockCount, trials, outputCount: kernel.outputCount, values };
+}
+
+/**
+ * Simulates blocks [firstBlock, firstBlock + blockCount) straight into the output-major array of the
+ * whole run (output o, trial t at o·totalTrials + t), so threads sharing one buffer fill disjoint parts
+ * of it and no merge copy is needed. The values equal those of {@link simulateBlocks} for any split.
+ * @param kernel the trial model
+ * @param seed integer in [0, 2^32 − 1]
+ * @param totalTrials trials in the whole run
+ * @param firstBlock first block to simulate, integer ≥ 0
+ * @param blockCount blocks to simulate, integer ≥ 1
+ * @param values the run's array, kernel.outputCount × totalTrials entries (e.g. over a SharedArrayBuffer)
+ * @param onProgress optional callback after each block: (blocks done, blocks in this call)
+ * @throws if the range lies outside the run or the array has the wrong length
+ * @example simulateBlocksInto(kernel, 1, 50_000, 25, 25, new Float64Array(11 * 50_000))
+ */
+export function simulateBlocksInto(
+  kernel: TrialKernel,
+  seed: number,
+  totalTrials: number,
+  firstBlock: number,
+  blockCount: number,
+  values: Float64Array,
+  onProgress?: (blocksDone: number, blockCount: number) => void,
+): void {
+  const trials = chunkTrials(totalTrials, firstBlock, blockCount);
+  if (values.length !== totalTrials * kernel.outputCount) throw new Error(`values must hold ${totalTrials * kernel.outputCount} entries`);
+  writeBlocks(kernel, seed, firstBlock, blockCount, trials, values, totalTrials, firstBlock * TRIALS_PER_BLOCK, onProgress);
+}
+
+function chunkTrials(totalTrials: number, firstBlock: number, blockCount: number): number {
   if (!Number.isInteger(blockCount) || blockCount < 1) throw new Error('block count must be an integer ≥ 1');
   if (!Number.isInteger(firstBlock) || firstBlock < 0 || firstBlock + blockCount > blockCountFor(totalTrials)) {
     throw new Error(`blocks ${firstBlock}…${firstBlock + blockCount - 1} lie beyond ${totalTrials} trials`);
   }
-  const trials = Math.min(totalTrials, (firstBlock + blockCount) * TRIALS_PER_BLOCK) - firstBlock * TRIALS_PER_BLOCK;
-  const values = new Float64Array(trials * kernel.outputCount);
+  return Math.min(totalTrials, (firstBlock + blockCount) * TRIALS_PER_BLOCK) - firstBlock * TRIALS_PER_BLOCK;
+}
+
+function writeBlocks(
+  kernel: TrialKernel, seed: number, firstBlock: number, blockCount: number, trials: number,
+  values: Float64Array, stride: number, start: number, onProgress?: (blocksDone: number, blockCount: number) => void,
+): void {
   const streams = blockStreams(seed, firstBlock);
   for (let b = 0; b < blockCount; b++) {
     const offset = b * TRIALS_PER_BLOCK;
     const blockTrials = Math.min(TRIALS_PER_BLOCK, trials - offset);
-    kernel.simulate(new VariateSource(streams.next()), blockTrials, values, trials, offset);
+    kernel.simulate(new VariateSource(streams.next()), blockTrials, values, stride, start + offset);
     onProgress?.(b + 1, blockCount);
   }
-  return { firstBlock, blockCount, trials, outputCount: kernel.outputCount, values };
 }
 
 /**

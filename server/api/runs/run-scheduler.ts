@@ -7,10 +7,13 @@ import type { StudyPool } from '../../workers/study-pool.js';
 import { firstNonFinite, nonFiniteReason } from './non-finite.js';
 import type { MarginStudyData } from '../margin/margin-study.js';
 import type { UncertaintyRunInputs } from '../../../shared/schemas/run-views.js';
+import { blockCountFor, planChunks } from '../../../shared/propagation/blocks.js';
+import { assembleChannelStudy, type ChannelAnalytic, type ChannelStudy } from '../../../shared/propagation/channel-study.js';
+import type { OutputSummary } from '../../../shared/propagation/summary.js';
 
 /** Studies one person may have waiting or running at once. */
 export const PER_USER_LIMIT = 2;
-/** Runs started at once; each spreads its channels over the pool's threads. */
+/** Runs started at once; each spreads its channels and their blocks of trials over the pool's threads. */
 const CONCURRENT_RUNS = 2;
 const PROGRESS_WRITE_MS = 1000;
 
@@ -130,16 +133,66 @@ export class RunScheduler {
       perChannel[i] = p;
       setProgress(perChannel.reduce((a, b) => a + b, 0) / perChannel.length);
     };
-    const studies = await Promise.all(inputs.channels.map((c, i) =>
-      this.pool.run(
-        {
-          kind: 'channel-uncertainty', channel: c.definition, seed: run.seed, trials: run.trials ?? undefined,
-          ndig: run.adaptiveDigits ?? undefined, coverageProbability: inputs.coverageProbability, gridPoints: inputs.gridPoints,
-        },
-        { onProgress: onProgress(i), signal: active.controller.signal },
-      ),
-    ));
+    const signal = active.controller.signal;
+    const trials = run.trials;
+    let studies: ChannelStudy[];
+    if (trials === null || trials === undefined) {
+      // The adaptive procedure decides batch by batch, so each channel runs in one thread
+      studies = await Promise.all(inputs.channels.map((c, i) =>
+        this.pool.run<ChannelStudy>(
+          {
+            kind: 'channel-uncertainty', channel: c.definition, seed: run.seed, ndig: run.adaptiveDigits ?? undefined,
+            coverageProbability: inputs.coverageProbability, gridPoints: inputs.gridPoints,
+          },
+          { onProgress: onProgress(i), signal },
+        ),
+      ));
+    } else {
+      // One channel at a time over every thread: only one channel's values are held at once
+      studies = [];
+      for (let i = 0; i < inputs.channels.length; i++) {
+        studies.push(await this.pooledChannelStudy(inputs.channels[i].definition, run.seed, trials, run.adaptiveDigits, inputs, onProgress(i), signal));
+      }
+    }
     return { channels: inputs.channels.map((c, i) => ({ key: c.key, name: c.definition.name, study: studies[i] })) };
+  }
+
+  /**
+   * A fixed-size channel study split over the pool: the run's blocks of trials are simulated in several
+   * chunks straight into one shared array (each block seeded from (seed, block), so the values do not depend
+   * on the split), then each voltage is summarised in its own task, while one task computes GUM and worst
+   * case. Equal, value for value, to channelStudy in one thread.
+   */
+  private async pooledChannelStudy(
+    channel: ChannelDefinition, seed: number, trials: number, ndig: number | null, inputs: UncertaintyRunInputs,
+    onProgress: (p: number) => void, signal: AbortSignal,
+  ): Promise<ChannelStudy> {
+    const { gridPoints, coverageProbability } = inputs;
+    const analytic = this.pool.run<ChannelAnalytic>({ kind: 'channel-analytic', channel, gridPoints, coverageProbability }, { signal });
+    // Settled now so a failure while the blocks run is not reported as unhandled
+    analytic.catch(() => undefined);
+    const values = new SharedArrayBuffer(trials * gridPoints * 8);
+    const totalBlocks = blockCountFor(trials);
+    // A few chunks per thread, so a thread busy with the analytic task does not hold up the rest
+    const ranges = planChunks(totalBlocks, this.pool.threads * 3);
+    const done = ranges.map(() => 0);
+    await Promise.all(ranges.map((range, r) => this.pool.run(
+      { kind: 'channel-blocks', channel, gridPoints, seed, totalTrials: trials, ...range, values },
+      {
+        signal,
+        onProgress: (p) => {
+          done[r] = p * range.blockCount;
+          onProgress(0.95 * done.reduce((a, b) => a + b, 0) / totalBlocks);
+        },
+      },
+    )));
+    const outputs = (await Promise.all(Array.from({ length: gridPoints }, (_, o) =>
+      this.pool.run<OutputSummary[]>({ kind: 'channel-summary', values, totalTrials: trials, outputs: [o], coverageProbability }, { signal }),
+    ))).flat();
+    onProgress(1);
+    return assembleChannelStudy(await analytic, { trials, stable: true, outputs, stabilisation: [] }, {
+      seed, coverageProbability, ndig: ndig ?? 2, adaptive: false,
+    });
   }
 
   /** One worker runs the whole margin study; its inputs snapshot holds everything it needs. */
