@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { roleSchema } from './roles.js';
+import { weakPasswordReason } from './password-rules.js';
 
 /** Passwords shorter than this are refused; length beats composition rules for typed passphrases. */
 export const PASSWORD_MIN_LENGTH = 12;
@@ -12,10 +13,24 @@ const emailSchema = z
   .max(254, { error: 'e-mail must be at most 254 characters' })
   .pipe(z.email({ error: 'e-mail is not a valid address' }));
 
+/** A new password: long enough, and not blank, a repetition, a run or a common password (see password-rules). */
 export const passwordSchema = z
   .string({ error: 'password is required' })
   .min(PASSWORD_MIN_LENGTH, { error: `password must be at least ${PASSWORD_MIN_LENGTH} characters` })
-  .max(PASSWORD_MAX_LENGTH, { error: `password must be at most ${PASSWORD_MAX_LENGTH} characters` });
+  .max(PASSWORD_MAX_LENGTH, { error: `password must be at most ${PASSWORD_MAX_LENGTH} characters` })
+  .superRefine((password, ctx) => {
+    const reason = weakPasswordReason(password);
+    if (reason) ctx.addIssue({ code: 'custom', message: reason });
+  });
+
+/** A person's name as others see it: trimmed, at least one visible character, no control characters. */
+export const displayNameSchema = z
+  .string({ error: 'display name is required' })
+  .trim()
+  .min(2, { error: 'display name must be at least 2 characters' })
+  .max(120, { error: 'display name must be at most 120 characters' })
+  .refine((name) => !/[\p{Cc}\p{Cs}]/u.test(name), { error: 'display name must not contain control characters' })
+  .refine((name) => /[^\s\p{C}\p{Z}]/u.test(name), { error: 'display name must contain a visible character' });
 
 export const signInSchema = z.strictObject({
   email: emailSchema,
@@ -35,11 +50,7 @@ export const inviteTokenSchema = z
 
 export const inviteAcceptSchema = z.strictObject({
   token: inviteTokenSchema,
-  displayName: z
-    .string({ error: 'display name is required' })
-    .trim()
-    .min(2, { error: 'display name must be at least 2 characters' })
-    .max(120, { error: 'display name must be at most 120 characters' }),
+  displayName: displayNameSchema,
   password: passwordSchema,
 });
 export type InviteAcceptBody = z.infer<typeof inviteAcceptSchema>;

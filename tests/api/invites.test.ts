@@ -84,6 +84,42 @@ describe('invitation flow through the SMTP fake', () => {
     expect((await t.agent().get(`/api/invites/${token}`)).status).toBe(200);
   });
 
+  it('refuses blank, repeated, run and common passwords naming the field, and keeps the token usable', async () => {
+    const { token } = await invite('weak@example.test');
+    const weak: [string, RegExp][] = [
+      [' '.repeat(12), /only spaces/], // the issue's example
+      ['123456789012', /straight run|common password/], // the issue's example
+      ['aaaaaaaaaaaa', /different characters/], // common practice
+      ['abcabcabcabc', /different characters/], // common practice
+      ['Password1234', /common password/], // common practice
+      ['P@ssw0rd2026!', /common password/], // common practice: look-alike digits
+      ['qwertyuiop12', /common password/], // common practice: keyboard row
+      ['Tallyvolt2026', /common password/], // the product name
+    ];
+    for (const [password, reason] of weak) {
+      const res = await t.agent().post('/api/invites/accept').send({ token, displayName: 'Weak Pass', password });
+      expect(res.status, password).toBe(400);
+      expect(res.body.fields.password, password).toMatch(reason);
+    }
+    expect((await t.agent().get(`/api/invites/${token}`)).status).toBe(200);
+  });
+
+  it('refuses a display name with nothing visible, or one someone already has in another case', async () => {
+    const { token } = await invite('names@example.test');
+    for (const displayName of ['   ', '\u200b\u200b\u200b', '\u00a0\u3000', 'Ab\u0007c']) {
+      const res = await t.agent().post('/api/invites/accept').send({ token, displayName, password: 'a long bench passphrase' });
+      expect(res.status, JSON.stringify(displayName)).toBe(400);
+      expect(res.body.fields.displayName).toBeDefined();
+    }
+    const taken = await t.agent().post('/api/invites/accept').send({ token, displayName: '  tamsin  FENWRIGHT ', password: 'a long bench passphrase' });
+    expect(taken.status).toBe(409);
+    expect(taken.body.fields.displayName).toBe('someone already has this display name');
+    expect((await t.agent().get(`/api/invites/${token}`)).status).toBe(200);
+    const ok = await t.agent().post('/api/invites/accept').send({ token, displayName: '  Nell Quarry  ', password: 'a long bench passphrase' });
+    expect(ok.status).toBe(201);
+    expect(ok.body.user.displayName).toBe('Nell Quarry');
+  });
+
   it('refuses an unknown token, an existing account and a non-admin inviter', async () => {
     expect((await t.agent().get(`/api/invites/${'x'.repeat(43)}`)).status).toBe(404);
     const admin = await t.signIn('admin@example.test', 'tallyvolt-admin');

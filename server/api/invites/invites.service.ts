@@ -8,6 +8,7 @@ import { InviteToken } from '../../entities/InviteToken.js';
 import { User } from '../../entities/User.js';
 import { hashInviteToken, INVITE_LIFETIME_MS, newInviteToken } from './invite-token.js';
 import { inviteMessage } from './invites.mail.js';
+import { assertDisplayNameFree } from '../users/display-names.js';
 
 /** Creates the invitation and mails its link; if the mail cannot be sent the invitation is withdrawn. */
 export async function createInvite(
@@ -59,6 +60,7 @@ export async function acceptInvite(dataSource: DataSource, body: InviteAcceptBod
     if (!spent.affected) throw new GoneError('this invitation has already been used; sign in, or ask an admin for a new one');
     const users = manager.getRepository(User);
     if (await users.existsBy({ email: invite.email })) throw new ConflictError(`${invite.email} already has an account`);
+    await assertDisplayNameFree(manager, body.displayName);
     const user = await users.save(users.create({ email: invite.email, displayName: body.displayName, role: invite.role, passwordHash, active: true }));
     await recordAudit(manager, user.id, 'invite.accept', `user:${user.id}`, { inviteId: invite.id });
     return user;
