@@ -6,7 +6,7 @@ import type { CalibrationOverview, PointsPreview, RowProblem, SessionDetail } fr
 
 export type { BoardComparison as Comparison, DesignPopulation, FitView, PointsPreview, RowProblem, Spread } from '@shared/schemas/calibration-views';
 
-export type { CalibrationOverview, SessionAnalysis, SessionDetail, StoredPoint } from '@shared/schemas/calibration-views';
+export type { CalibrationOverview, CalibrationRecordView, SessionAnalysis, SessionDetail, StoredPoint } from '@shared/schemas/calibration-views';
 
 export interface PointsImportOutcome {
   imported: number;
@@ -34,6 +34,7 @@ export const calibrationsApi = {
   setExclusion: (id: number, pointId: number, excluded: boolean, reason: string, baseVersion: number) =>
     http.patch<{ session: SessionDetail }>(`${path(id)}/points/${encodeURIComponent(pointId)}`, { excluded, reason, baseVersion }).then((r) => r.session),
   complete: (id: number) => http.post<{ session: SessionDetail }>(`${path(id)}/complete`).then((r) => r.session),
+  reopen: (id: number) => http.post<{ session: SessionDetail }>(`${path(id)}/reopen`).then((r) => r.session),
   /** Without a mapping the server answers with the header and its suggested mapping only. */
   previewImport: (id: number, file: File, mapping?: CsvMapping) =>
     http.upload<PointsPreview>(`${path(id)}/points/import?mode=preview`, uploadForm(file, mapping)),
@@ -41,14 +42,15 @@ export const calibrationsApi = {
     http.upload<PointsImportOutcome>(`${path(id)}/points/import?mode=${mode}`, uploadForm(file, mapping)),
   overview: (revisionId: number, channelKey: string) =>
     http.get<CalibrationOverview>(`/api/calibrations/overview?${queryString({ revisionId, channelKey })}`),
-  exportUrl: (id: number, format: 'h' | 'json') => `${path(id)}/export.${format}`,
+  /** Without a record: the latest record of a completed session, or a draft's fit computed now. */
+  exportUrl: (id: number, format: 'h' | 'json', record?: number) => `${path(id)}/export.${format}${record === undefined ? '' : `?${queryString({ record })}`}`,
 };
 
 /** Fetches an export as a file, so a refusal ("nothing to export yet") reads as a message, not a blank page. */
-export async function fetchExport(id: number, format: 'h' | 'json'): Promise<{ blob: Blob; fileName: string }> {
+export async function fetchExport(id: number, format: 'h' | 'json', record?: number): Promise<{ blob: Blob; fileName: string }> {
   let response: Response;
   try {
-    response = await fetch(calibrationsApi.exportUrl(id, format), { credentials: 'same-origin' });
+    response = await fetch(calibrationsApi.exportUrl(id, format, record), { credentials: 'same-origin' });
   } catch {
     throw new ApiError(0, 'The server could not be reached. Check your connection and try again.');
   }

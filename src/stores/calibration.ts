@@ -35,6 +35,7 @@ export const useCalibrationStore = defineStore('calibration', () => {
   const setExclusion = async (pointId: number, excluded: boolean, reason: string) =>
     adopt(await calibrationsApi.setExclusion(id(), pointId, excluded, reason, session.value!.pointsVersion));
   const markComplete = async () => adopt(await calibrationsApi.complete(id()));
+  const reopen = async () => adopt(await calibrationsApi.reopen(id()));
 
-  return { session, complete, channelName, open, adopt, update, replacePoints, setExclusion, markComplete };
+  return { session, complete, channelName, open, adopt, update, replacePoints, setExclusion, markComplete, reopen };
 });

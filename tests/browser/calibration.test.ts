@@ -131,4 +131,55 @@ describe('a tester in the browser', () => {
     expect(await points.getByRole('button', { name: /^Exclude point/ }).count()).toBe(0);
     await rig.screenshot('calibration-session-complete');
   }, 120_000);
+
+  it('shows the frozen record of a completed session, downloads from it, and keeps it across a reopen and a new record', async () => {
+    const { page } = rig;
+    await page.context().clearCookies();
+    await page.goto(`${rig.baseUrl}/sign-in`);
+    await page.getByLabel('E-mail').fill('tester@example.test');
+    await page.getByLabel('Password').fill('tallyvolt-tester');
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await page.waitForURL((url) => url.pathname === '/');
+
+    // The demo board's completed link-side session, frozen as record 1 when it was completed.
+    const { id, sha256 } = await page.evaluate(async () => {
+      const boards = (await (await fetch('/api/boards')).json()).items as { id: number; serialNumber: string }[];
+      const board = (await (await fetch(`/api/boards/${boards.find((b) => b.serialNumber === 'PM-2-001')!.id}`)).json()).board;
+      const link = board.sessions.find((s: { channelKey: string; state: string }) => s.channelKey === 'link' && s.state === 'complete');
+      const session = (await (await fetch(`/api/calibrations/${link.id}`)).json()).session;
+      return { id: session.id as number, sha256: session.records[0].sha256 as string };
+    });
+    const downloadText = async (name: string) => {
+      const [file] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name, exact: true }).click()]);
+      return fs.readFileSync(await file.path(), 'utf8');
+    };
+
+    await page.goto(`${rig.baseUrl}/calibrations/${id}`);
+    const records = page.getByRole('region', { name: 'Frozen records' });
+    await expect.poll(() => records.isVisible()).toBe(true);
+    expect(await records.innerText()).toContain(`record 1 of session ${id}`);
+    expect(await records.getByText(sha256).isVisible()).toBe(true);
+    await rig.screenshot('calibration-record');
+    const frozen = await downloadText('Download C header');
+    expect(frozen).toContain(`record 1 of session ${id}, SHA-256 ${sha256}`);
+
+    await page.getByRole('button', { name: 'Reopen session…' }).click();
+    await page.getByRole('alertdialog', { name: 'Reopen this calibration session?' }).getByRole('button', { name: 'Reopen session' }).click();
+    await expect.poll(() => records.getByText('This session was reopened').isVisible()).toBe(true);
+    expect(await page.getByText('at most 500 per session').isVisible()).toBe(true);
+    await page.getByRole('button', { name: 'Upload CSV' }).click();
+    const upload = page.getByRole('dialog', { name: 'Upload calibration points from a CSV file' });
+    expect(await upload.getByText('A session holds at most 500 points').isVisible()).toBe(true);
+    await upload.getByRole('button', { name: 'Cancel' }).click();
+    expect(await downloadText('C header, record 1')).toBe(frozen);
+
+    await page.getByRole('button', { name: 'Complete session…' }).click();
+    await page.getByRole('alertdialog', { name: 'Complete this calibration session?' }).getByRole('button', { name: 'Complete session' }).click();
+    await expect.poll(() => records.innerText()).toContain(`record 2 of session ${id}`);
+    const second = await downloadText('Download C header');
+    expect(second).toMatch(new RegExp(`record 2 of session ${id}, SHA-256 [0-9a-f]{64}`));
+    expect(second).not.toContain(sha256);
+    expect(await downloadText('C header, record 1')).toBe(frozen);
+    await rig.screenshot('calibration-record-second');
+  }, 120_000);
 });
