@@ -1,3 +1,4 @@
+import crypto from 'node:crypto';
 import nodemailer, { type Transporter } from 'nodemailer';
 import { SMTPServer } from 'smtp-server';
 import { simpleParser, type AddressObject } from 'mailparser';
@@ -23,6 +24,16 @@ export interface MailFake {
 
 const MAX_MESSAGE_BYTES = 2 * 1024 * 1024;
 
+/** The loopback fake's login: a fresh random secret per process, known only to this process's mailer. */
+const FAKE_SMTP_USER = 'tallyvolt';
+const FAKE_SMTP_SECRET = crypto.randomBytes(32).toString('base64url');
+
+function sameSecret(given: string, expected: string): boolean {
+  const a = crypto.createHash('sha256').update(given).digest();
+  const b = crypto.createHash('sha256').update(expected).digest();
+  return crypto.timingSafeEqual(a, b);
+}
+
 function addressText(value: AddressObject | AddressObject[] | undefined): string {
   if (!value) return '';
   return (Array.isArray(value) ? value : [value]).map((a) => a.text).join(', ');
@@ -35,8 +46,17 @@ function addressText(value: AddressObject | AddressObject[] | undefined): string
 export async function startMailFake(dataSource: DataSource): Promise<MailFake> {
   const outbox = dataSource.getRepository(OutboxMessage);
   const server = new SMTPServer({
-    authOptional: true,
-    disabledCommands: ['STARTTLS', 'AUTH'],
+    // Any local process can reach a loopback port: only a client that knows this process's secret may send,
+    // so nothing but the app itself can put a message in the Outbox.
+    authOptional: false,
+    authMethods: ['PLAIN', 'LOGIN'],
+    // Plain-text AUTH is acceptable only because the listener is bound to loopback below.
+    allowInsecureAuth: true,
+    disabledCommands: ['STARTTLS'],
+    onAuth(auth, _session, callback) {
+      if (auth.username === FAKE_SMTP_USER && sameSecret(auth.password ?? '', FAKE_SMTP_SECRET)) return callback(null, { user: FAKE_SMTP_USER });
+      callback(Object.assign(new Error('authentication failed'), { responseCode: 535 }));
+    },
     size: MAX_MESSAGE_BYTES,
     logger: false,
     onData(stream, _session, callback) {
@@ -69,7 +89,10 @@ export function createMailer(from: string, target: { smtpUrl: string } | { fakeP
   const transport: Transporter =
     'smtpUrl' in target
       ? nodemailer.createTransport(target.smtpUrl)
-      : nodemailer.createTransport({ host: '127.0.0.1', port: target.fakePort, secure: false, ignoreTLS: true });
+      : nodemailer.createTransport({
+        host: '127.0.0.1', port: target.fakePort, secure: false, ignoreTLS: true,
+        auth: { user: FAKE_SMTP_USER, pass: FAKE_SMTP_SECRET },
+      });
   return {
     async send(message) {
       await transport.sendMail({ from, ...message });
