@@ -8,7 +8,9 @@ import { CandidateShortlist } from './candidate-ranking.js';
 import { planSearch } from './finder-request.js';
 import type { SearchPlan } from './finder-request.js';
 import type { FinderRequest, FinderResult } from './finder-types.js';
-import { limitWindow, mixedWork, searchEqualStrings, searchMixedStrings, searchState, usableInTop, MAX_REJECTIONS_IN_A_ROW } from './string-search.js';
+import {
+  highestTopOhms, limitWindow, mixedWork, searchEqualStrings, searchMixedStrings, searchState, usableInTop, MAX_REJECTIONS_IN_A_ROW,
+} from './string-search.js';
 import { halfStrings, multisetCount, type HalfStrings } from './top-strings.js';
 
 /** Most multisets held in one half table. */
@@ -30,7 +32,10 @@ function notSearchedMixed(length: number, why: string): string {
     'Narrow the resistor range, ask for a tolerance or allow fewer top resistors to include them.';
 }
 
-function runSearch(plan: SearchPlan): { candidates: FinderResult['candidates']; notSearched: string[] } {
+/** Half tables kept between the searches of one request, each with the largest sum it holds. */
+type TableCache = Map<number, { maxSum: number; table: HalfStrings | null }>;
+
+function runSearch(plan: SearchPlan, tables: TableCache): { candidates: FinderResult['candidates']; notSearched: string[] } {
   const shortlist = new CandidateShortlist(plan.maxCandidates);
   const state = searchState(plan, shortlist);
   const notSearched: string[] = [];
@@ -46,15 +51,20 @@ function runSearch(plan: SearchPlan): { candidates: FinderResult['candidates']; 
     const topIndex = Int32Array.from(usable);
     const ohms = usable.map((index) => plan.values[index].ohms);
     const quantity = usable.map((index) => plan.values[index].quantity);
-    const tables = new Map<number, HalfStrings | null>();
-    const table = (size: number): HalfStrings | null => {
-      if (!tables.has(size)) tables.set(size, halfStrings(ohms, quantity, size, MAX_HALF_STRINGS));
-      return tables.get(size) ?? null;
+    const table = (size: number, maxSum: number): HalfStrings | null => {
+      const kept = tables.get(size);
+      if (kept && kept.maxSum >= maxSum) return kept.table;
+      const built = halfStrings(ohms, quantity, size, MAX_HALF_STRINGS, maxSum);
+      tables.set(size, { maxSum, table: built });
+      return built;
     };
     let budget = MIXED_WORK_BUDGET;
     for (let length = Math.max(2, plan.minTopCount); length <= plan.maxTopCount; length++) {
-      const halfA = table(Math.floor(length / 2));
-      const halfB = halfA && table(length - Math.floor(length / 2));
+      // No bottom leaves room for a string of this length within the limits and bound: none can be valid.
+      const reach = highestTopOhms(state, length);
+      if (!(reach >= 0)) continue;
+      const halfA = table(Math.floor(length / 2), reach);
+      const halfB = halfA && table(length - Math.floor(length / 2), reach);
       if (!halfA || !halfB) {
         notSearched.push(notSearchedMixed(length, `about ${aboutCount(multisetCount(ohms.length, length))} combinations of values`));
         continue;
@@ -92,13 +102,14 @@ function runSearch(plan: SearchPlan): { candidates: FinderResult['candidates']; 
  */
 export function findDividers(request: FinderRequest): FinderResult {
   const plan = planSearch(request);
-  const found = runSearch(plan);
+  const tables: TableCache = new Map();
+  const found = runSearch(plan, tables);
   const asked = {
     targetRatio: plan.targetRatio,
     maxInputVolts: plan.maxInputVolts,
     toleranceFraction: plan.maxRatioErrorFraction === Infinity ? null : plan.maxRatioErrorFraction,
   };
   if (found.candidates.length > 0 || asked.toleranceFraction === null) return { ...asked, candidates: found.candidates, closest: [], notSearched: found.notSearched };
-  const nearest = runSearch({ ...plan, maxRatioErrorFraction: Infinity, maxCandidates: Math.min(CLOSEST_SHOWN, plan.maxCandidates) });
+  const nearest = runSearch({ ...plan, maxRatioErrorFraction: Infinity, maxCandidates: Math.min(CLOSEST_SHOWN, plan.maxCandidates) }, tables);
   return { ...asked, candidates: [], closest: nearest.candidates, notSearched: nearest.notSearched };
 }

@@ -74,6 +74,15 @@ function largestTopOhms(plan: SearchPlan, highestTotal: number): number {
 }
 
 /**
+ * The highest R_t a string of `length` resistors can have under the per-resistor voltage limit:
+ * each holds at most maxV·(R_t + R_b')/V, so R_t ≤ n·maxV·R_b'/(V − n·maxV) when n·maxV < V.
+ */
+function stringCapOhms(plan: SearchPlan, length: number, loadedOhms: number): number {
+  const share = length * plan.limits.maxVoltsPerResistor;
+  return share < plan.maxInputVolts ? ((share * loadedOhms) / (plan.maxInputVolts - share)) * (1 + 1e-9) : Infinity;
+}
+
+/**
  * The A-sums worth pairing with one bottom, [first, end): through its canonical split a multiset's
  * A-half holds its |A| smallest values, so a ≤ (|A|/n)·R_t; its B-half holds |B| values each no
  * larger than the per-resistor limits allow, so a ≥ R_t − |B|·R_max.
@@ -150,14 +159,24 @@ export function searchEqualStrings(state: SearchState, length: number): void {
     if (!(plan.inputBiasAmps * topOhms < plan.maxInputVolts)) return;
     indices.fill(valueIndex);
     const idealLoaded = (plan.targetRatio * topOhms) / (1 - plan.targetRatio);
-    const split = firstSumAtOrAbove(loaded, idealLoaded);
+    // Each top resistor keeps V·v/(n·v + R_b') within its voltage and (V/(n·v + R_b'))²·v within its
+    // power only from some R_b' up: R_b' ≥ v·(V/maxV − n) and R_b' ≥ V·√(v/maxW) − n·v.
+    const { limits, maxInputVolts } = plan;
+    const lowestLoaded = Math.max(
+      part.ohms * (maxInputVolts / Math.min(limits.maxVoltsPerResistor, part.maxVolts) - length),
+      maxInputVolts * Math.sqrt(part.ohms / Math.min(limits.maxWattsPerResistor, part.maxWatts)) - topOhms,
+    );
+    const firstBottom = firstSumAtOrAbove(loaded, lowestLoaded * (1 - 1e-12));
+    const split = Math.max(firstSumAtOrAbove(loaded, idealLoaded), firstBottom);
     for (const step of [1, -1]) {
       let rejected = 0;
-      for (let b = step === 1 ? split : split - 1; b >= 0 && b < loaded.length; b += step) {
+      for (let b = step === 1 ? split : split - 1; b >= firstBottom && b < loaded.length; b += step) {
         // The highest allowed R_t, highest total − R_b', falls as R_b' grows; the lowest may move either way.
         const [low, high] = limitWindow(plan, plan.values[b], loaded[b]);
         if (topOhms > high) { if (step === 1) break; continue; }
         if (topOhms < low) continue;
+        // A top resistor's share of the input shrinks as R_b' grows.
+        if (topOhms > stringCapOhms(plan, length, loaded[b])) { if (step === -1) break; continue; }
         if (!mayRank(state, worstCaseError(plan, topOhms, loaded[b]))) break;
         if (offer(state, indices, b, topOhms)) rejected = 0;
         else if (++rejected >= MAX_REJECTIONS_IN_A_ROW) { state.cutWalks++; break; }
@@ -166,13 +185,30 @@ export function searchEqualStrings(state: SearchState, length: number): void {
   });
 }
 
+/**
+ * The largest R_t any bottom leaves room for in a string of `length` resistors (limits, error
+ * bound, voltage share), or −Infinity when none does; no half string above it can be used.
+ */
+export function highestTopOhms(state: SearchState, length: number): number {
+  const { plan, loaded } = state;
+  let highest = -Infinity;
+  for (let bottom = 0; bottom < loaded.length; bottom++) {
+    if (plan.values[bottom].quantity < 1 || !isMonotoneAbout(plan, loaded[bottom])) continue;
+    const [low, windowHigh] = topWindow(state, plan.values[bottom], loaded[bottom]);
+    const high = Math.min(windowHigh, stringCapOhms(plan, length, loaded[bottom]));
+    if (low <= high) highest = Math.max(highest, high);
+  }
+  return highest;
+}
+
 /** Steps a mixed search of one length would take at most (for the budget), with the bound as it stands. */
 export function mixedWork(state: SearchState, halfA: HalfStrings, halfB: HalfStrings, length: number): number {
   const { plan, loaded } = state;
   let work = 0;
   const logB = Math.log2(halfB.count + 1) + 1;
   for (let bottom = 0; bottom < loaded.length; bottom++) {
-    const [low, high] = topWindow(state, plan.values[bottom], loaded[bottom]);
+    const [low, windowHigh] = topWindow(state, plan.values[bottom], loaded[bottom]);
+    const high = Math.min(windowHigh, stringCapOhms(plan, length, loaded[bottom]));
     if (!(low <= high)) continue;
     const [first, end] = aRange(plan, halfA, halfB.size, length, low, high, loaded[bottom]);
     const aCount = Math.max(0, end - first);
@@ -192,8 +228,8 @@ export function mixedWork(state: SearchState, halfA: HalfStrings, halfB: HalfStr
  */
 export function searchMixedStrings(state: SearchState, topIndex: Int32Array, halfA: HalfStrings, halfB: HalfStrings, length: number): void {
   const { plan, loaded, shortlist } = state;
-  const { sums: aSums, size: aSize } = halfA;
-  const { sums: bSums, size: bSize, count: bCount } = halfB;
+  const { sums: aSums, size: aSize, largest: aLargest } = halfA;
+  const { sums: bSums, size: bSize, count: bCount, largest: bLargest } = halfB;
   const { targetRatio, maxRatioErrorFraction } = plan;
   const logB = Math.log2(bCount + 1) + 1;
   const indices = new Array<number>(length);
@@ -207,7 +243,8 @@ export function searchMixedStrings(state: SearchState, topIndex: Int32Array, hal
   for (let bottom = 0; bottom < loaded.length; bottom++) {
     const loadedOhms = loaded[bottom];
     if (plan.values[bottom].quantity < 1 || !isMonotoneAbout(plan, loadedOhms)) continue;
-    const [low, high] = topWindow(state, plan.values[bottom], loadedOhms);
+    const [low, windowHigh] = topWindow(state, plan.values[bottom], loadedOhms);
+    const high = Math.min(windowHigh, stringCapOhms(plan, length, loadedOhms));
     if (!(low <= high)) continue;
     const ideal = idealTopOhms(plan, loadedOhms);
     // worstCaseError written in u = R_b'/(R_t + R_b'): |u/r₀ − 1| + β·(1 − u), β = I_b·R_b'/(V·r₀).
@@ -233,6 +270,7 @@ export function searchMixedStrings(state: SearchState, topIndex: Int32Array, hal
       for (let ib = up; ib < bCount; ib++) {
         const topOhms = a + bSums[ib];
         if (topOhms > high || !mayRankAt(topOhms)) break;
+        if (Math.max(aLargest[ia], bLargest[ib]) > largestTopOhms(plan, topOhms + loadedOhms)) continue;
         if (tryPair(ia, ib, bottom, topOhms)) rejected = 0;
         else if (++rejected >= MAX_REJECTIONS_IN_A_ROW) { state.cutWalks++; break; }
       }
@@ -240,6 +278,7 @@ export function searchMixedStrings(state: SearchState, topIndex: Int32Array, hal
       for (let ib = down; ib >= 0; ib--) {
         const topOhms = a + bSums[ib];
         if (topOhms < low || !mayRankAt(topOhms)) break;
+        if (Math.max(aLargest[ia], bLargest[ib]) > largestTopOhms(plan, topOhms + loadedOhms)) continue;
         if (tryPair(ia, ib, bottom, topOhms)) rejected = 0;
         else if (++rejected >= MAX_REJECTIONS_IN_A_ROW) { state.cutWalks++; break; }
       }

@@ -59,55 +59,58 @@ export interface HalfStrings {
   sums: Float64Array;
   /** value indices, non-decreasing within each tuple */
   tuples: Int32Array;
+  /** the largest value in each tuple (Ω; 0 for the empty one) */
+  largest: Float64Array;
 }
 
 /**
- * Every multiset of `size` values whose use of each value stays within its quantity, sorted by
- * sum (ties by tuple order of enumeration, which is deterministic).
+ * Every multiset of `size` values whose use of each value stays within its quantity and whose sum
+ * is at most `maxSum`, sorted by sum (ties in enumeration order, which is deterministic).
  * @param ohms values ascending (Ω)
  * @param quantity how many of each value may be used (Infinity for a series)
  * @param size m ≥ 0 (m = 0 gives the one empty multiset, sum 0)
  * @param cap most multisets to build
+ * @param maxSum largest sum kept (Ω), Infinity for all
  * @returns the table, or null when there are more than `cap`
  * @example halfStrings([1, 2], [Infinity, Infinity], 2, 100)?.sums // [2, 3, 4]
  */
-export function halfStrings(ohms: readonly number[], quantity: readonly number[], size: number, cap: number): HalfStrings | null {
+export function halfStrings(ohms: readonly number[], quantity: readonly number[], size: number, cap: number, maxSum = Infinity): HalfStrings | null {
+  if (size === 0) return { size, count: 1, sums: new Float64Array(1), tuples: new Int32Array(0), largest: new Float64Array(1) };
   const room = Math.min(multisetCount(ohms.length, size), cap + 1);
-  if (room > cap && quantity.every((q) => q >= size)) return null;
+  if (room > cap && maxSum === Infinity && quantity.every((q) => q >= size)) return null;
   const unsorted = new Float64Array(room);
   const rawTuples = new Int32Array(room * size);
   const tuple = new Int32Array(size);
+  const prefix = new Float64Array(size + 1);
   let count = 0;
-  // Non-decreasing tuples in lexicographic order; a value repeated beyond its quantity is skipped.
-  const fits = (position: number): boolean => {
-    let used = 1;
-    for (let back = position - 1; back >= 0 && tuple[back] === tuple[position]; back--) used++;
-    return used <= quantity[tuple[position]];
-  };
+  // Non-decreasing tuples in lexicographic order. At each position a value repeated beyond its
+  // quantity is skipped; once the cheapest completion with a value exceeds maxSum, so do all larger.
   let position = 0;
-  if (size > 0) tuple[0] = 0;
   for (;;) {
-    if (position < size && tuple[position] < ohms.length && fits(position)) {
+    if (tuple[position] < ohms.length) {
+      const index = tuple[position];
+      const partial = prefix[position];
+      if (partial + (size - position) * ohms[index] > maxSum) {
+        tuple[position] = ohms.length;
+        continue;
+      }
+      let used = 1;
+      for (let back = position - 1; back >= 0 && tuple[back] === index; back--) used++;
+      if (used > quantity[index]) {
+        tuple[position]++;
+        continue;
+      }
       if (position === size - 1) {
         if (count === cap) return null;
-        let sum = 0;
-        for (let i = 0; i < size; i++) sum += ohms[tuple[i]];
-        unsorted[count] = sum;
+        unsorted[count] = partial + ohms[index];
         rawTuples.set(tuple, count * size);
         count++;
         tuple[position]++;
       } else {
-        tuple[position + 1] = tuple[position];
+        tuple[position + 1] = index;
+        prefix[position + 1] = partial + ohms[index];
         position++;
       }
-      continue;
-    }
-    if (size === 0) {
-      count = 1;
-      break;
-    }
-    if (position < size && tuple[position] < ohms.length) {
-      tuple[position]++;
       continue;
     }
     if (position === 0) break;
@@ -118,12 +121,14 @@ export function halfStrings(ohms: readonly number[], quantity: readonly number[]
   const order = sortedOrder(keys);
   const sums = new Float64Array(count);
   const tuples = new Int32Array(count * size);
+  const largest = new Float64Array(count);
   for (let j = 0; j < count; j++) {
     const from = order[j];
     sums[j] = keys[from];
     for (let i = 0; i < size; i++) tuples[j * size + i] = rawTuples[from * size + i];
+    largest[j] = ohms[rawTuples[from * size + size - 1]];
   }
-  return { size, count, sums, tuples };
+  return { size, count, sums, tuples, largest };
 }
 
 /**
