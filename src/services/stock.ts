@@ -3,7 +3,13 @@ import { queryString } from '@/utils/queryString';
 import type { StockPartBody } from '@shared/schemas/stock';
 import type { StockImportOutcome, StockPreview } from '@shared/schemas/stock-views';
 
-export { STOCK_CSV_COLUMNS, STOCK_CSV_REQUIRED } from '@shared/schemas/stock';
+import { STOCK_PART_LIMIT } from '@shared/schemas/stock';
+
+export { STOCK_CSV_COLUMNS, STOCK_CSV_REQUIRED, STOCK_PART_LIMIT } from '@shared/schemas/stock';
+
+/** A count of parts as people read it, with a thin space between thousands (10 000). */
+export const partCountText = (count: number): string => count.toLocaleString('en-GB').replace(/,/g, '\u202f');
+export const STOCK_LIMIT_TEXT = partCountText(STOCK_PART_LIMIT);
 
 export interface StockPart extends StockPartBody {
   id: number;
