@@ -3,7 +3,7 @@ import fs from 'node:fs';
 import path from 'node:path';
 import session from 'express-session';
 import { TypeormStore } from 'connect-typeorm';
-import type { DataSource, Repository } from 'typeorm';
+import type { DataSource, EntityManager, Repository } from 'typeorm';
 import type { AppConfig } from '../config.js';
 import { SessionRecord } from '../entities/SessionRecord.js';
 
@@ -76,4 +76,23 @@ export function createSessionMiddleware(dataSource: DataSource, config: AppConfi
     proxy: config.trustProxy,
     cookie: { httpOnly: true, sameSite: 'lax', secure: 'auto', maxAge: TWELVE_HOURS_MS },
   });
+}
+
+/**
+ * Deletes every stored session of one person (passport keeps the user id at `passport.user` in the session JSON),
+ * inside the caller's transaction, so a deactivated person or a reset password leaves no session to come back to.
+ * Parsed here rather than matched in SQL so the same code serves SQLite and PostgreSQL.
+ */
+export async function endSessionsOf(manager: EntityManager, userId: number): Promise<number> {
+  const repo = manager.getRepository(SessionRecord);
+  const rows = await repo.find({ select: { id: true, json: true }, withDeleted: true });
+  const ids = rows.filter((row) => {
+    try {
+      return (JSON.parse(row.json) as { passport?: { user?: unknown } }).passport?.user === userId;
+    } catch {
+      return false;
+    }
+  }).map((row) => row.id);
+  for (let i = 0; i < ids.length; i += 500) await repo.delete(ids.slice(i, i + 500));
+  return ids.length;
 }

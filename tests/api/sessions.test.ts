@@ -37,6 +37,23 @@ describe('stored sessions', () => {
     expect((await sessions.find()).length).toBe(before.length);
   });
 
+  it('ends every session of a deactivated person, so reactivation does not revive an idle one', async () => {
+    const tester = DEMO_USERS.find((u) => u.role === 'tester')!;
+    const idle = await t.signIn(tester.email, tester.password);
+    const other = await t.signIn(tester.email, tester.password);
+    const admin = await t.signIn('admin@example.test', 'tallyvolt-admin');
+    const testerId = (await idle.get('/api/auth/me')).body.user.id;
+    expect((await admin.patch(`/api/users/${testerId}`).send({ active: false })).status).toBe(200);
+    const left = (await t.dataSource.getRepository(SessionRecord).find()).filter((r) => JSON.parse(r.json).passport?.user === testerId);
+    expect(left).toEqual([]);
+    expect((await admin.patch(`/api/users/${testerId}`).send({ active: true })).status).toBe(200);
+    expect((await idle.get('/api/auth/me')).status).toBe(401);
+    expect((await other.get('/api/auth/me')).status).toBe(401);
+    // the admin's own session is untouched, and the person can sign in afresh
+    expect((await admin.get('/api/auth/me')).status).toBe(200);
+    expect((await t.agent().post('/api/auth/sign-in').send({ email: tester.email, password: tester.password })).status).toBe(200);
+  });
+
   it('refuses a session destroyed by sign-out, even if its cookie is replayed', async () => {
     const res = await t.agent().post('/api/auth/sign-in').send({ email: designer.email, password: designer.password });
     const cookie = String(res.headers['set-cookie']).split(';')[0];

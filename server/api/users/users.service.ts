@@ -4,6 +4,7 @@ import { recordAudit } from '../../common/audit.js';
 import { ConflictError, NotFoundError } from '../../common/errors.js';
 import { User } from '../../entities/User.js';
 import { userCacheFor } from '../../common/user-cache.js';
+import { endSessionsOf } from '../../common/session.js';
 
 export async function listUsers(dataSource: DataSource, page: number, pageSize: number) {
   const [items, total] = await dataSource.getRepository(User).findAndCount({
@@ -30,6 +31,8 @@ export async function updateUser(dataSource: DataSource, actor: User, id: number
     if (patch.role) user.role = patch.role;
     if (patch.active !== undefined) user.active = patch.active;
     await repo.save(user);
+    // Deactivation ends every session at once; otherwise one idle through it would work again after reactivation.
+    if (patch.active === false) await endSessionsOf(manager, user.id);
     await recordAudit(manager, actor.id, 'user.update', `user:${user.id}`, { before, after: { role: user.role, active: user.active } });
     return user;
   });
