@@ -131,5 +131,5 @@ describe('the review of a revision in the browser', () => {
     expect(await page.getByRole('navigation', { name: 'Main' }).isVisible()).toBe(false);
     await rig.screenshot('review-report-print');
     await page.emulateMedia({ media: 'screen' });
-  }, 150_000);
+  }, 240_000);
 });
