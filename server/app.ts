@@ -2,7 +2,9 @@ import fs from 'node:fs';
 import path from 'node:path';
 import express, { Router } from 'express';
 import helmet from 'helmet';
+import compression from 'compression';
 import { authRoutes } from './api/auth/auth.router.js';
+import { passwordResetRoutes } from './api/auth/password-reset.router.js';
 import { invitesRoutes } from './api/invites/invites.router.js';
 import { outboxRoutes } from './api/outbox/outbox.router.js';
 import { usersRoutes } from './api/users/users.router.js';
@@ -19,7 +21,7 @@ import { calibrationRoutes } from './api/calibration/calibration.router.js';
 import type { AppDeps } from './common/deps.js';
 import { apiNotFound, errorHandler } from './common/errors.js';
 import { configurePassport } from './common/passport.js';
-import { inviteLimit, signInLimits } from './common/rate-limits.js';
+import { inviteLimit, passwordResetLimit, signInLimits } from './common/rate-limits.js';
 import { mountRoutes, type RouteTableRow } from './common/routes.js';
 import { createSessionMiddleware } from './common/session.js';
 import { sameOriginOnly } from './common/csrf.js';
@@ -50,8 +52,10 @@ export function createApp(deps: AppDeps): BuiltApp {
 
   app.use('/api', sameOriginOnly);
   const api = Router();
+  const signIn = signInLimits(config.rateLimits, config.signInDelay);
   const routeTable: RouteTableRow[] = [
-    ...mountRoutes(api, '/auth', authRoutes(passport, signInLimits(config.rateLimits, config.signInDelay))),
+    ...mountRoutes(api, '/auth', authRoutes(passport, signIn)),
+    ...mountRoutes(api, '/auth/password-reset', passwordResetRoutes(deps, passwordResetLimit(config.rateLimits), signIn.delay)),
     ...mountRoutes(api, '/users', usersRoutes(deps)),
     ...mountRoutes(api, '/invites', invitesRoutes(deps, inviteLimit(config.rateLimits))),
     ...mountRoutes(api, '/outbox', outboxRoutes(deps)),
@@ -69,6 +73,9 @@ export function createApp(deps: AppDeps): BuiltApp {
   app.use('/api', apiNotFound);
 
   if (fs.existsSync(path.join(config.distDir, 'index.html'))) {
+    // Client files go out compressed; hashed assets never change under their name, so they are kept a year
+    app.use(compression());
+    app.use('/assets', express.static(path.join(config.distDir, 'assets'), { index: false, immutable: true, maxAge: '1y' }));
     app.use(express.static(config.distDir, { index: false, maxAge: '1h' }));
     // Client-side routes: every other GET gets the app shell.
     // Relative to the client folder: the static sender refuses an absolute path through a dot-folder
