@@ -22,6 +22,7 @@ export const CLOSEST_SHOWN = 5;
 
 /** A count in words a person reads at a glance: 3400, 2.1 million, 1.4 billion. */
 function aboutCount(count: number): string {
+  if (count >= 1e12) return `${Number((count / 1e12).toPrecision(2))} trillion`;
   if (count >= 1e9) return `${Number((count / 1e9).toPrecision(2))} billion`;
   if (count >= 1e6) return `${Number((count / 1e6).toPrecision(2))} million`;
   return String(Math.round(count));
