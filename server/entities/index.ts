@@ -9,11 +9,12 @@ import { Design } from './Design.js';
 import { InviteToken } from './InviteToken.js';
 import { MarginInputsRecord } from './MarginInputsRecord.js';
 import { OutboxMessage } from './OutboxMessage.js';
+import { PasswordResetToken } from './PasswordResetToken.js';
 import { ResistorSeries } from './ResistorSeries.js';
 import { Revision } from './Revision.js';
 import { SessionRecord } from './SessionRecord.js';
 import { StockPart } from './StockPart.js';
 import { User } from './User.js';
 
-export { AnalysisRun, AuditEvent, Board, CalibrationPoint, CalibrationRecord, CalibrationSession, Channel, Design, InviteToken, MarginInputsRecord, OutboxMessage, ResistorSeries, Revision, SessionRecord, StockPart, User };
-export const entities = [User, InviteToken, AuditEvent, OutboxMessage, SessionRecord, Design, Revision, Channel, ResistorSeries, StockPart, AnalysisRun, Board, CalibrationSession, CalibrationPoint, MarginInputsRecord, CalibrationRecord];
+export { AnalysisRun, AuditEvent, Board, CalibrationPoint, CalibrationRecord, CalibrationSession, Channel, Design, InviteToken, MarginInputsRecord, OutboxMessage, PasswordResetToken, ResistorSeries, Revision, SessionRecord, StockPart, User };
+export const entities = [User, InviteToken, AuditEvent, OutboxMessage, SessionRecord, Design, Revision, Channel, ResistorSeries, StockPart, AnalysisRun, Board, CalibrationSession, CalibrationPoint, MarginInputsRecord, CalibrationRecord, PasswordResetToken];

@@ -55,4 +55,24 @@ export const inviteAcceptSchema = z.strictObject({
 });
 export type InviteAcceptBody = z.infer<typeof inviteAcceptSchema>;
 
+
+export const passwordResetRequestSchema = z.strictObject({ email: emailSchema });
+export type PasswordResetRequestBody = z.infer<typeof passwordResetRequestSchema>;
+
+export const passwordResetTokenSchema = z
+  .string({ error: 'token is required' })
+  .regex(/^[A-Za-z0-9_-]{20,100}$/, { error: 'token is not a valid password-reset token' });
+
+export const passwordResetCompleteSchema = z.strictObject({
+  token: passwordResetTokenSchema,
+  password: passwordSchema,
+});
+export type PasswordResetCompleteBody = z.infer<typeof passwordResetCompleteSchema>;
+
+/** What a reset link reveals before it is used: whose password it sets, and until when it works. */
+export interface PasswordResetDetails {
+  email: string;
+  expiresAt: string;
+}
+
 export { emailSchema };
