@@ -1,3 +1,4 @@
+import { setMaxListeners } from 'node:events';
 import { In, type DataSource } from 'typeorm';
 import type { QueryDeepPartialEntity } from 'typeorm/query-builder/QueryPartialEntity.js';
 import type { ChannelDefinition } from '../../../shared/schemas/chain.js';
@@ -168,6 +169,8 @@ export class RunScheduler {
     onProgress: (p: number) => void, signal: AbortSignal,
   ): Promise<ChannelStudy> {
     const { gridPoints, coverageProbability } = inputs;
+    // Every queued task of the study listens for its cancel: a 41-voltage study has over 41 at once
+    setMaxListeners(gridPoints + this.pool.threads * 3 + 10, signal);
     const analytic = this.pool.run<ChannelAnalytic>({ kind: 'channel-analytic', channel, gridPoints, coverageProbability }, { signal });
     // Settled now so a failure while the blocks run is not reported as unhandled
     analytic.catch(() => undefined);
