@@ -74,6 +74,17 @@ describe('a full stock', () => {
     const stored = await t.dataSource.getRepository(StockPart).find({ order: { ohms: 'ASC', id: 'ASC' }, select: { quantity: true } });
     expect(quantities).toEqual(stored.map((p) => p.quantity));
   });
+
+  it('answers a signed-in check while four full downloads are under way', async () => {
+    const lead = await t.signIn('lead@example.test', 'tallyvolt-lead');
+    const finished: string[] = [];
+    const downloads = [1, 2, 3, 4].map((n) => lead.get('/api/stock/export.csv').then((res) => { finished.push(`download ${n}`); return res; }));
+    const me = lead.get('/api/auth/me').then((res) => { finished.push('me'); return res; });
+    const [answers, who] = await Promise.all([Promise.all(downloads), me]);
+    expect(who.status).toBe(200);
+    for (const res of answers) expect(res.text.trimEnd().split('\r\n')).toHaveLength(STOCK_PART_LIMIT + 1);
+    expect(finished.indexOf('me')).toBeLessThan(4); // order of completion only: the downloads yield between pages
+  });
 });
 
 describe('streaming a CSV', () => {
