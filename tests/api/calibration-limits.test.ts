@@ -110,4 +110,18 @@ describe('points per calibration session', () => {
     expect(res.body.session.analysis.fit.points).toHaveLength(500);
     expect(res.text.length).toBeLessThan(1024 * 1024); // a full session stays well under 1 MiB (in this test; 54,585 points made 13 MB)
   });
+
+  it('does not fit a session stored over the limit before it existed, and will not complete it', async () => {
+    const id = await newSession();
+    const repo = t.dataSource.getRepository(CalibrationPoint);
+    await repo.insert(pairs(600).map((p, position) => ({ ...p, sessionId: id, position }))); // as an import before the limit left it
+    const res = await tester.get(`/api/calibrations/${id}`);
+    expect(res.status).toBe(200);
+    expect(res.body.session.analysis.fit).toBeNull();
+    expect(res.body.session.analysis.reason).toBe('holds 600 points, more than the 500 a session may hold; remove points before fitting'); // 600 inserted (in this test)
+    expect((await tester.post(`/api/calibrations/${id}/complete`)).status).toBe(409);
+    const cut = await putPoints(tester, id, { points: pairs(20) });
+    expect(cut.status).toBe(200);
+    expect(cut.body.session.analysis.fit.pointsUsed).toBe(20); // back under the limit, fitted again (in this test)
+  });
 });

@@ -121,6 +121,10 @@ export async function setExclusion(
 
 /** Fit and comparison with the design, or the reason there is none yet. */
 export async function analyseSession(dataSource: DataSource | EntityManager, session: CalibrationSession) {
+  // Only a session stored before the limit can be over it; it is not fitted, so reading it stays cheap.
+  if (session.points.length > MAX_POINTS_PER_SESSION) {
+    return { fit: null, comparison: null, reason: `holds ${session.points.length} points, more than the ${MAX_POINTS_PER_SESSION} a session may hold; remove points before fitting` };
+  }
   const used = session.points.filter((p) => !p.excluded);
   const needed = session.fit.degree + (session.fit.intercept ? 1 : 0) + 1;
   if (used.length < needed) {
