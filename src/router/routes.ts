@@ -9,6 +9,19 @@ export const routes: RouteRecordRaw[] = [
     meta: { title: 'Sign in', public: true, bare: true },
   },
   {
+    path: '/reset-password',
+    name: 'reset-password-request',
+    component: () => import('@/pages/PasswordResetRequestPage.vue'),
+    meta: { title: 'Forgotten password', public: true, bare: true },
+  },
+  {
+    path: '/reset-password/:token',
+    name: 'reset-password',
+    component: () => import('@/pages/PasswordResetPage.vue'),
+    props: true,
+    meta: { title: 'Set a new password', public: true, bare: true },
+  },
+  {
     path: '/invite/:token',
     name: 'accept-invite',
     component: () => import('@/pages/AcceptInvitePage.vue'),
