@@ -125,18 +125,19 @@ function breaksLimits(plan: SearchPlan, topOhms: number, largestTopOhms: number,
 }
 
 /** Offers one divider (top value indices ascending); true when it was a new valid candidate. */
-function offer(state: SearchState, topIndices: readonly number[], bottomIndex: number, topOhms: number): boolean {
+function offer(state: SearchState, topIndices: readonly number[], bottomIndex: number, topOhms: number, unique: boolean): boolean {
   const { plan } = state;
   if (breaksLimits(plan, topOhms, plan.values[topIndices[topIndices.length - 1]].ohms, bottomIndex, state.loaded[bottomIndex])) return false;
-  const key = `${topIndices.join(',')}|${bottomIndex}`;
-  if (state.seen.has(key)) return false;
+  // A mixed multiset is reached through more than one split of its halves; an equal string only once.
+  const key = unique ? '' : `${topIndices.join(',')}|${bottomIndex}`;
+  if (!unique && state.seen.has(key)) return false;
   let run = 0;
   for (let i = 0; i < topIndices.length; i++) {
     run = i > 0 && topIndices[i] === topIndices[i - 1] ? run + 1 : 1;
     const uses = run + (topIndices[i] === bottomIndex ? 1 : 0);
     if (uses > plan.values[topIndices[i]].quantity) return false;
   }
-  state.seen.add(key);
+  if (!unique) state.seen.add(key);
   const top: SearchValue[] = topIndices.map((index) => plan.values[index]);
   const candidate = evaluateDivider(plan, top, plan.values[bottomIndex]);
   if (candidate === null) return false;
@@ -167,18 +168,17 @@ export function searchEqualStrings(state: SearchState, length: number): void {
       maxInputVolts * Math.sqrt(part.ohms / Math.min(limits.maxWattsPerResistor, part.maxWatts)) - topOhms,
     );
     const firstBottom = firstSumAtOrAbove(loaded, lowestLoaded * (1 - 1e-12));
+    const highestTotal = Math.min(limits.maxTotalOhms, maxInputVolts / limits.minBleedAmps);
     const split = Math.max(firstSumAtOrAbove(loaded, idealLoaded), firstBottom);
     for (const step of [1, -1]) {
       let rejected = 0;
       for (let b = step === 1 ? split : split - 1; b >= firstBottom && b < loaded.length; b += step) {
-        // The highest allowed R_t, highest total − R_b', falls as R_b' grows; the lowest may move either way.
-        const [low, high] = limitWindow(plan, plan.values[b], loaded[b]);
-        if (topOhms > high) { if (step === 1) break; continue; }
-        if (topOhms < low) continue;
+        // The highest allowed R_t, highest total − R_b', falls as R_b' grows.
+        if (topOhms > highestTotal - loaded[b]) { if (step === 1) break; continue; }
         // A top resistor's share of the input shrinks as R_b' grows.
         if (topOhms > stringCapOhms(plan, length, loaded[b])) { if (step === -1) break; continue; }
         if (!mayRank(state, worstCaseError(plan, topOhms, loaded[b]))) break;
-        if (offer(state, indices, b, topOhms)) rejected = 0;
+        if (offer(state, indices, b, topOhms, true)) rejected = 0;
         else if (++rejected >= MAX_REJECTIONS_IN_A_ROW) { state.cutWalks++; break; }
       }
     }
@@ -238,7 +238,9 @@ export function searchMixedStrings(state: SearchState, topIndex: Int32Array, hal
     for (let i = 0; i < aSize; i++) indices[i] = topIndex[halfA.tuples[ia * aSize + i]];
     for (let i = 0; i < bSize; i++) indices[aSize + i] = topIndex[halfB.tuples[ib * bSize + i]];
     if (aSize > 0 && bSize > 0 && indices[aSize - 1] > indices[aSize]) indices.sort(byIndex);
-    return offer(state, indices, bottom, topOhms);
+    // Equal strings were searched exactly before, under a bound no tighter than now.
+    if (indices[0] === indices[length - 1]) return false;
+    return offer(state, indices, bottom, topOhms, false);
   };
   for (let bottom = 0; bottom < loaded.length; bottom++) {
     const loadedOhms = loaded[bottom];
