@@ -30,6 +30,9 @@ export interface ChannelBlocksTask {
   totalTrials: number;
   firstBlock: number;
   blockCount: number;
+  /** Outputs kept in `values`: [firstOutput, firstOutput + outputCount). */
+  firstOutput: number;
+  outputCount: number;
   values: SharedArrayBuffer;
   port?: MessagePort;
 }

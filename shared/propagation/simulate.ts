@@ -39,9 +39,11 @@ export function simulateBlocks(
  * @param totalTrials trials in the whole run
  * @param firstBlock first block to simulate, integer ≥ 0
  * @param blockCount blocks to simulate, integer ≥ 1
- * @param values the run's array, kernel.outputCount × totalTrials entries (e.g. over a SharedArrayBuffer)
+ * @param values the run's array, outputs.count × totalTrials entries (e.g. over a SharedArrayBuffer)
  * @param onProgress optional callback after each block: (blocks done, blocks in this call)
- * @throws if the range lies outside the run or the array has the wrong length
+ * @param outputs keep only outputs [first, first + count) (default all): a run too large to hold whole
+ *   is simulated once per group of outputs, each pass drawing the same trials
+ * @throws if the range lies outside the run, the outputs outside the kernel's, or the array has the wrong length
  * @example simulateBlocksInto(kernel, 1, 50_000, 25, 25, new Float64Array(11 * 50_000))
  */
 export function simulateBlocksInto(
@@ -52,10 +54,31 @@ export function simulateBlocksInto(
   blockCount: number,
   values: Float64Array,
   onProgress?: (blocksDone: number, blockCount: number) => void,
+  outputs: { first: number; count: number } = { first: 0, count: kernel.outputCount },
 ): void {
   const trials = chunkTrials(totalTrials, firstBlock, blockCount);
-  if (values.length !== totalTrials * kernel.outputCount) throw new Error(`values must hold ${totalTrials * kernel.outputCount} entries`);
-  writeBlocks(kernel, seed, firstBlock, blockCount, trials, values, totalTrials, firstBlock * TRIALS_PER_BLOCK, onProgress);
+  const { first, count } = outputs;
+  if (!Number.isInteger(first) || !Number.isInteger(count) || first < 0 || count < 1 || first + count > kernel.outputCount) {
+    throw new Error(`outputs must lie within the kernel's ${kernel.outputCount}`);
+  }
+  if (values.length !== totalTrials * count) throw new Error(`values must hold ${totalTrials * count} entries`);
+  const start = firstBlock * TRIALS_PER_BLOCK;
+  if (count === kernel.outputCount) {
+    writeBlocks(kernel, seed, firstBlock, blockCount, trials, values, totalTrials, start, onProgress);
+    return;
+  }
+  // One block at a time into a small array, keeping the wanted outputs
+  const block = new Float64Array(TRIALS_PER_BLOCK * kernel.outputCount);
+  const streams = blockStreams(seed, firstBlock);
+  for (let b = 0; b < blockCount; b++) {
+    const offset = b * TRIALS_PER_BLOCK;
+    const blockTrials = Math.min(TRIALS_PER_BLOCK, trials - offset);
+    kernel.simulate(new VariateSource(streams.next()), blockTrials, block, blockTrials, 0);
+    for (let o = 0; o < count; o++) {
+      values.set(block.subarray((first + o) * blockTrials, (first + o + 1) * blockTrials), o * totalTrials + start + offset);
+    }
+    onProgress?.(b + 1, blockCount);
+  }
 }
 
 function chunkTrials(totalTrials: number, firstBlock: number, blockCount: number): number {

@@ -9,6 +9,7 @@ import { firstNonFinite, nonFiniteReason } from './non-finite.js';
 import type { MarginStudyData } from '../margin/margin-study.js';
 import type { UncertaintyRunInputs } from '../../../shared/schemas/run-views.js';
 import { blockCountFor, planChunks } from '../../../shared/propagation/blocks.js';
+import { MAX_TRIALS } from '../../../shared/schemas/runs.js';
 import { assembleChannelStudy, type ChannelAnalytic, type ChannelStudy } from '../../../shared/propagation/channel-study.js';
 import type { OutputSummary } from '../../../shared/propagation/summary.js';
 
@@ -17,6 +18,8 @@ export const PER_USER_LIMIT = 2;
 /** Runs started at once; each spreads its channels and their blocks of trials over the pool's threads. */
 const CONCURRENT_RUNS = 2;
 const PROGRESS_WRITE_MS = 1000;
+/** Most bytes of trial values one study holds at once: 11 voltages of the largest run (2·10⁶ trials). */
+const VALUES_BUDGET_BYTES = 11 * MAX_TRIALS * 8;
 
 
 interface ActiveRun {
@@ -32,6 +35,8 @@ export class RunScheduler {
   private readonly queue: number[] = [];
   private readonly active = new Map<number, ActiveRun>();
   private closed = false;
+  /** Most bytes of trial values one channel study holds at once (lowered by tests to force passes). */
+  valuesBudgetBytes = VALUES_BUDGET_BYTES;
 
   constructor(private readonly dataSource: DataSource, private readonly pool: StudyPool) {}
 
@@ -162,7 +167,8 @@ export class RunScheduler {
    * A fixed-size channel study split over the pool: the run's blocks of trials are simulated in several
    * chunks straight into one shared array (each block seeded from (seed, block), so the values do not depend
    * on the split), then each voltage is summarised in its own task, while one task computes GUM and worst
-   * case. Equal, value for value, to channelStudy in one thread.
+   * case. Equal, value for value, to channelStudy in one thread. Past valuesBudgetBytes the voltages are
+   * taken in groups, the same trials simulated again for each group.
    */
   private async pooledChannelStudy(
     channel: ChannelDefinition, seed: number, trials: number, ndig: number | null, inputs: UncertaintyRunInputs,
@@ -174,24 +180,32 @@ export class RunScheduler {
     const analytic = this.pool.run<ChannelAnalytic>({ kind: 'channel-analytic', channel, gridPoints, coverageProbability }, { signal });
     // Settled now so a failure while the blocks run is not reported as unhandled
     analytic.catch(() => undefined);
-    const values = new SharedArrayBuffer(trials * gridPoints * 8);
     const totalBlocks = blockCountFor(trials);
     // A few chunks per thread, so a thread busy with the analytic task does not hold up the rest
     const ranges = planChunks(totalBlocks, this.pool.threads * 3);
-    const done = ranges.map(() => 0);
-    await Promise.all(ranges.map((range, r) => this.pool.run(
-      { kind: 'channel-blocks', channel, gridPoints, seed, totalTrials: trials, ...range, values },
-      {
-        signal,
-        onProgress: (p) => {
-          done[r] = p * range.blockCount;
-          onProgress(0.95 * done.reduce((a, b) => a + b, 0) / totalBlocks);
+    // Memory stays bounded: a run too large to hold whole is simulated once per group of voltages
+    const perPass = Math.max(1, Math.min(gridPoints, Math.floor(this.valuesBudgetBytes / (trials * 8))));
+    const passes = Math.ceil(gridPoints / perPass);
+    const outputs: OutputSummary[] = [];
+    for (let pass = 0; pass < passes; pass++) {
+      const firstOutput = pass * perPass;
+      const outputCount = Math.min(perPass, gridPoints - firstOutput);
+      const values = new SharedArrayBuffer(trials * outputCount * 8);
+      const done = ranges.map(() => 0);
+      await Promise.all(ranges.map((range, r) => this.pool.run(
+        { kind: 'channel-blocks', channel, gridPoints, seed, totalTrials: trials, ...range, firstOutput, outputCount, values },
+        {
+          signal,
+          onProgress: (p) => {
+            done[r] = p * range.blockCount;
+            onProgress(0.95 * (pass + done.reduce((a, b) => a + b, 0) / totalBlocks) / passes);
+          },
         },
-      },
-    )));
-    const outputs = (await Promise.all(Array.from({ length: gridPoints }, (_, o) =>
-      this.pool.run<OutputSummary[]>({ kind: 'channel-summary', values, totalTrials: trials, outputs: [o], coverageProbability }, { signal }),
-    ))).flat();
+      )));
+      outputs.push(...(await Promise.all(Array.from({ length: outputCount }, (_, o) =>
+        this.pool.run<OutputSummary[]>({ kind: 'channel-summary', values, totalTrials: trials, outputs: [o], coverageProbability }, { signal }),
+      ))).flat());
+    }
     onProgress(1);
     return assembleChannelStudy(await analytic, { trials, stable: true, outputs, stabilisation: [] }, {
       seed, coverageProbability, ndig: ndig ?? 2, adaptive: false,

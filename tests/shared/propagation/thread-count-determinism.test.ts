@@ -46,6 +46,19 @@ describe('a study split over threads', () => {
     expect(shared).toEqual(whole.values); // blocks seeded from (seed, block index) alone (in this test)
   });
 
+  it('keeps the same values when the voltages are simulated in groups, one pass per group', () => {
+    const whole = simulateBlocks(channelKernel(compileChannel(channel, gridPoints)), seed, trials, 0, blockCountFor(trials));
+    for (const [first, count] of [[0, 1], [1, 2], [3, 1], [0, 3]]) {
+      const group = new Float64Array(trials * count);
+      for (const range of planChunks(blockCountFor(trials), 3)) {
+        simulateBlocksInto(channelKernel(compileChannel(channel, gridPoints)), seed, trials, range.firstBlock, range.blockCount, group, undefined, { first, count });
+      }
+      expect(group).toEqual(whole.values.subarray(first * trials, (first + count) * trials)); // each pass draws the same trials (in this test)
+    }
+    const kernel = channelKernel(compileChannel(channel, gridPoints));
+    expect(() => simulateBlocksInto(kernel, seed, trials, 0, 1, new Float64Array(trials), undefined, { first: 4, count: 1 })).toThrow(/outputs must lie/);
+  });
+
   it('summarises the same whether the values are sorted where they lie or copied first', () => {
     const chunk = simulateBlocks(channelKernel(compileChannel(channel, gridPoints)), seed, trials, 0, blockCountFor(trials));
     const copied = summariseChunks([chunk], seed);
