@@ -127,6 +127,7 @@ export async function benchServer(): Promise<void> {
     const cookie = signIn.headers.get('set-cookie')!.split(';')[0];
     const design = (await (await fetch(`${url}api/designs`, { headers: { cookie } })).json()).items[0];
     const s: Session = { url, cookie, revisionId: design.latestRevision.id };
+    console.log(`server: ${os.availableParallelism()} cores, study threads ${process.env.STUDY_THREADS ?? 'by default one fewer than the cores'} (STUDY_THREADS), load average ${os.loadavg()[0].toFixed(1)} at start`);
     await signInPageWeight(url);
 
     await new Promise((r) => setTimeout(r, 3000)); // idle first: the first study must find its threads warm
