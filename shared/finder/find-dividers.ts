@@ -8,9 +8,10 @@ import { CandidateShortlist } from './candidate-ranking.js';
 import { planSearch } from './finder-request.js';
 import type { SearchPlan } from './finder-request.js';
 import type { FinderRequest, FinderResult } from './finder-types.js';
-import {
-  highestTopOhms, limitWindow, mixedWork, searchEqualStrings, searchMixedStrings, searchState, usableInTop, MAX_REJECTIONS_IN_A_ROW,
-} from './string-search.js';
+import { searchEqualStrings } from './equal-strings.js';
+import { limitWindow, usableInTop } from './finder-limits.js';
+import { highestTopOhms, mixedWork, searchMixedStrings } from './mixed-strings.js';
+import { searchState, MAX_REJECTIONS_IN_A_ROW } from './search-state.js';
 import { halfStrings, multisetCount, type HalfStrings } from './top-strings.js';
 
 /** Most multisets held in one half table. */
