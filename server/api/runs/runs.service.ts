@@ -38,6 +38,8 @@ export async function requestUncertaintyStudy(
     return saved;
   });
   scheduler.enqueue(run.id);
+  // The answer names who started it, so the page can offer Cancel to that person at once.
+  run.requestedBy = actor;
   return run;
 }
 
