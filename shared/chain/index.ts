@@ -4,7 +4,7 @@ export { dividerNominal, resistorStresses } from './divider.js';
 export type { DividerNominal, ResistorStress } from './divider.js';
 export { evaluationGrid } from './grid.js';
 export { nominalFrequencyHz, countsPerReading, frequencyResolutionHz, readingTimeS } from './capture.js';
-export { chainWarnings, MIN_COUNTS_PER_READING } from './warnings.js';
+export { chainWarnings, MIN_COUNTS_PER_READING, MIN_RANGE_USE_FRACTION, rangeUseFraction } from './warnings.js';
 export { nominalReadouts } from './readouts.js';
 export type { NominalReadouts, GridReadout } from './readouts.js';
 export { boardInputs, readingInputs } from './inputs.js';

@@ -3,7 +3,7 @@ import { dividerNominal, resistorStresses, type ResistorStress } from './divider
 import { evaluationGrid } from './grid.js';
 import type { ChainWarning, ChannelDefinition } from './types.js';
 import { assertChannel } from './validate.js';
-import { chainWarnings } from './warnings.js';
+import { chainWarnings, rangeUseFraction } from './warnings.js';
 
 /** Nominal numbers at one evaluation voltage. */
 export interface GridReadout {
@@ -20,6 +20,8 @@ export interface NominalReadouts {
   ratio: number;
   theveninOhm: number;
   fullScaleFrequencyHz: number;
+  /** Share of the converter's input span used at the range maximum (1 = full scale, > 1 clips); null when f_FS ≤ f₀. */
+  rangeUseFraction: number | null;
   /** Bleed current at the range maximum, A. */
   bleedCurrentA: number;
   /** Per resistor at the range maximum. */
@@ -61,6 +63,7 @@ export function nominalReadouts(channel: ChannelDefinition, gridPoints = 5): Nom
     ratio: nominal.ratio,
     theveninOhm: nominal.theveninOhm,
     fullScaleFrequencyHz: nominalFrequencyHz(converter, nominal.ratio, rangeV.maxV),
+    rangeUseFraction: rangeUseFraction(nominalFrequencyHz(converter, nominal.ratio, rangeV.maxV), converter),
     bleedCurrentA: rangeV.maxV * nominal.bleedAPerV,
     stresses: resistorStresses(divider, rangeV.maxV, converter.inputResistanceOhm),
     grid,

@@ -19,6 +19,7 @@ export interface ChainWarning {
     | 'over-power-rating'
     | 'over-power-derating'
     | 'converter-over-range'
+    | 'converter-range-unused'
     | 'isolator-rate-exceeded'
     | 'counter-overflow'
     | 'few-counts'
