@@ -8,30 +8,32 @@ import { parseOrThrow } from './validation.js';
 /** Who may call a route: anyone, anyone signed in, or the listed roles. */
 export type Access = 'public' | 'signed-in' | readonly Role[];
 
-export interface RouteContext<B, Q, P> {
+/** The guard has already turned away anyone not signed in, so only a public route's handler may lack a user. */
+export type UserFor<A extends Access> = A extends 'public' ? User | undefined : User;
+
+export interface RouteContext<B, Q, P, U extends User | undefined = User | undefined> {
   body: B;
   query: Q;
   params: P;
-  /** The signed-in user; undefined only on public routes. */
-  user: User | undefined;
+  user: U;
   req: Request;
   res: Response;
 }
 
-export interface RouteSpec<B = unknown, Q = unknown, P = unknown> {
+export interface RouteSpec<B = unknown, Q = unknown, P = unknown, A extends Access = Access> {
   method: 'get' | 'post' | 'patch' | 'put' | 'delete';
   path: string;
-  access: Access;
+  access: A;
   body?: ZodType<B>;
   query?: ZodType<Q>;
   params?: ZodType<P>;
   /** Extra middleware before validation (e.g. a rate limiter or an upload parser). */
   before?: ((req: Request, res: Response, next: (err?: unknown) => void) => void)[];
-  handler: (ctx: RouteContext<B, Q, P>) => Promise<void> | void;
+  handler: (ctx: RouteContext<B, Q, P, UserFor<A>>) => Promise<void> | void;
 }
 
 /** Keeps the generic types of one route while collecting it in a plain array. */
-export function defineRoute<B = undefined, Q = undefined, P = undefined>(spec: RouteSpec<B, Q, P>): RouteSpec {
+export function defineRoute<B = undefined, Q = undefined, P = undefined, const A extends Access = Access>(spec: RouteSpec<B, Q, P, A>): RouteSpec {
   return spec as unknown as RouteSpec;
 }
 

@@ -56,7 +56,7 @@ export function authRoutes(passport: PassportStatic, limits: SignInLimits): Rout
     defineRoute({
       method: 'get', path: '/me', access: 'signed-in',
       handler: ({ user, res }) => {
-        res.json({ user: toPublicUser(user!) });
+        res.json({ user: toPublicUser(user) });
       },
     }),
   ];

@@ -3,12 +3,10 @@ import { boardCreateSchema, sessionCreateSchema } from '../../../shared/schemas/
 import { idParamSchema } from '../../../shared/schemas/common.js';
 import type { AppDeps } from '../../common/deps.js';
 import { defineRoute, type RouteSpec } from '../../common/routes.js';
+import { ROLE_GROUPS } from '../../../shared/schemas/roles.js';
 import { toBoardView, toSessionDetail, toSessionSummary } from '../calibration/calibration.mapper.js';
 import { createSession } from '../calibration/sessions.service.js';
 import { createBoard, getBoard, listBoards, sessionsOfBoards } from './boards.service.js';
-
-export const CALIBRATION_WRITERS = ['tester', 'admin'] as const;
-export const CALIBRATION_READERS = ['tester', 'admin', 'designer', 'lead'] as const;
 
 const listQuery = z.strictObject({
   revisionId: z.coerce.number({ error: 'revisionId must be a number' }).int().positive({ error: 'revisionId must be positive' }).optional(),
@@ -17,7 +15,7 @@ const listQuery = z.strictObject({
 export function boardsRoutes({ dataSource }: AppDeps): RouteSpec[] {
   return [
     defineRoute({
-      method: 'get', path: '', access: CALIBRATION_READERS, query: listQuery,
+      method: 'get', path: '', access: ROLE_GROUPS.everyone, query: listQuery,
       handler: async ({ query, res }) => {
         const boards = await listBoards(dataSource, query.revisionId);
         const sessions = await sessionsOfBoards(dataSource, boards.map((b) => b.id));
@@ -25,11 +23,11 @@ export function boardsRoutes({ dataSource }: AppDeps): RouteSpec[] {
       },
     }),
     defineRoute({
-      method: 'post', path: '', access: CALIBRATION_WRITERS, body: boardCreateSchema,
-      handler: async ({ body, user, res }) => { res.status(201).json({ board: toBoardView(await createBoard(dataSource, user!, body), []) }); },
+      method: 'post', path: '', access: ROLE_GROUPS.calibrators, body: boardCreateSchema,
+      handler: async ({ body, user, res }) => { res.status(201).json({ board: toBoardView(await createBoard(dataSource, user, body), []) }); },
     }),
     defineRoute({
-      method: 'get', path: '/:id', access: CALIBRATION_READERS, params: idParamSchema,
+      method: 'get', path: '/:id', access: ROLE_GROUPS.everyone, params: idParamSchema,
       handler: async ({ params, res }) => {
         const board = await getBoard(dataSource, params.id);
         const sessions = await sessionsOfBoards(dataSource, [board.id]);
@@ -37,9 +35,9 @@ export function boardsRoutes({ dataSource }: AppDeps): RouteSpec[] {
       },
     }),
     defineRoute({
-      method: 'post', path: '/:id/sessions', access: CALIBRATION_WRITERS, params: idParamSchema, body: sessionCreateSchema,
+      method: 'post', path: '/:id/sessions', access: ROLE_GROUPS.calibrators, params: idParamSchema, body: sessionCreateSchema,
       handler: async ({ params, body, user, res }) => {
-        const session = await createSession(dataSource, user!, params.id, body);
+        const session = await createSession(dataSource, user, params.id, body);
         res.status(201).json({ session: toSessionDetail(session, { fit: null, comparison: null, reason: 'no points yet' }) });
       },
     }),

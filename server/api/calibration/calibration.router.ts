@@ -7,7 +7,7 @@ import { BadRequestError } from '../../common/errors.js';
 import { defineRoute, type RouteSpec } from '../../common/routes.js';
 import { csvUpload } from '../../common/upload.js';
 import { parseOrThrow } from '../../common/validation.js';
-import { CALIBRATION_READERS, CALIBRATION_WRITERS } from '../boards/boards.router.js';
+import { ROLE_GROUPS } from '../../../shared/schemas/roles.js';
 import { calibrationOverview } from './calibration-overview.js';
 import { toSessionDetail } from './calibration.mapper.js';
 import { cHeader, jsonExport } from './firmware-export.js';
@@ -54,29 +54,29 @@ export function calibrationRoutes({ dataSource, mailer, config }: AppDeps): Rout
   };
   return [
     defineRoute({
-      method: 'get', path: '/overview', access: CALIBRATION_READERS, query: overviewQuery,
+      method: 'get', path: '/overview', access: ROLE_GROUPS.everyone, query: overviewQuery,
       handler: async ({ query, res }) => { res.json(await calibrationOverview(dataSource, query.revisionId, query.channelKey)); },
     }),
     defineRoute({
-      method: 'get', path: '/:id', access: CALIBRATION_READERS, params: idParamSchema,
+      method: 'get', path: '/:id', access: ROLE_GROUPS.everyone, params: idParamSchema,
       handler: async ({ params, res }) => { res.json({ session: await detail(params.id) }); },
     }),
     defineRoute({
-      method: 'patch', path: '/:id', access: CALIBRATION_WRITERS, params: idParamSchema, body: sessionPatchSchema,
+      method: 'patch', path: '/:id', access: ROLE_GROUPS.calibrators, params: idParamSchema, body: sessionPatchSchema,
       handler: async ({ params, body, user, res }) => {
-        await updateSession(dataSource, user!, params.id, body);
+        await updateSession(dataSource, user, params.id, body);
         res.json({ session: await detail(params.id) });
       },
     }),
     defineRoute({
-      method: 'put', path: '/:id/points', access: CALIBRATION_WRITERS, params: idParamSchema, body: pointsReplaceSchema,
+      method: 'put', path: '/:id/points', access: ROLE_GROUPS.calibrators, params: idParamSchema, body: pointsReplaceSchema,
       handler: async ({ params, body, user, res }) => {
-        await writePoints(dataSource, user!, params.id, body.points, 'replace', body.baseVersion);
+        await writePoints(dataSource, user, params.id, body.points, 'replace', body.baseVersion);
         res.json({ session: await detail(params.id) });
       },
     }),
     defineRoute({
-      method: 'post', path: '/:id/points/import', access: CALIBRATION_WRITERS, params: idParamSchema, query: importQuery, before: [csvUpload],
+      method: 'post', path: '/:id/points/import', access: ROLE_GROUPS.calibrators, params: idParamSchema, query: importQuery, before: [csvUpload],
       handler: async ({ params, query, user, req, res }) => {
         const mapping = mappingOf(req.body?.mapping);
         const session = await getSession(dataSource, params.id);
@@ -89,36 +89,36 @@ export function calibrationRoutes({ dataSource, mailer, config }: AppDeps): Rout
         }
         if (!mapping) throw new BadRequestError('choose which column holds what before importing', { mapping: 'is required to import' });
         const points = importableRows(preview.rows.map((r) => r.point), query.mode === 'valid-only');
-        await writePoints(dataSource, user!, params.id, points, 'append');
+        await writePoints(dataSource, user, params.id, points, 'append');
         res.status(201).json({ imported: points.length, skipped: preview.invalidCount, problems: preview.problems, session: await detail(params.id) });
       },
     }),
     defineRoute({
-      method: 'patch', path: '/:id/points/:pointId', access: CALIBRATION_WRITERS, params: pointParams, body: pointExclusionSchema,
+      method: 'patch', path: '/:id/points/:pointId', access: ROLE_GROUPS.calibrators, params: pointParams, body: pointExclusionSchema,
       handler: async ({ params, body, user, res }) => {
         const session = await getSession(dataSource, params.id);
         if (!session.points.some((p) => p.id === params.pointId)) throw new BadRequestError(`point ${params.pointId} is not part of session ${params.id}`);
-        await setExclusion(dataSource, user!, params.pointId, body.excluded, body.reason, body.baseVersion);
+        await setExclusion(dataSource, user, params.pointId, body.excluded, body.reason, body.baseVersion);
         res.json({ session: await detail(params.id) });
       },
     }),
     defineRoute({
-      method: 'post', path: '/:id/complete', access: CALIBRATION_WRITERS, params: idParamSchema,
+      method: 'post', path: '/:id/complete', access: ROLE_GROUPS.calibrators, params: idParamSchema,
       handler: async ({ params, user, req, res }) => {
         const baseUrl = publicBaseUrl(config, req);
-        await completeSession(dataSource, mailer, user!, params.id, baseUrl);
+        await completeSession(dataSource, mailer, user, params.id, baseUrl);
         res.json({ session: await detail(params.id) });
       },
     }),
     defineRoute({
-      method: 'post', path: '/:id/reopen', access: CALIBRATION_WRITERS, params: idParamSchema,
+      method: 'post', path: '/:id/reopen', access: ROLE_GROUPS.calibrators, params: idParamSchema,
       handler: async ({ params, user, res }) => {
-        await reopenSession(dataSource, user!, params.id);
+        await reopenSession(dataSource, user, params.id);
         res.json({ session: await detail(params.id) });
       },
     }),
     defineRoute({
-      method: 'get', path: '/:id/export.h', access: CALIBRATION_READERS, params: idParamSchema, query: exportQuery,
+      method: 'get', path: '/:id/export.h', access: ROLE_GROUPS.everyone, params: idParamSchema, query: exportQuery,
       handler: async ({ params, query, res }) => {
         const { ctx, fit, record } = await exportSource(dataSource, params.id, query.record);
         const name = `tallyvolt_${ctx.serialNumber}_${ctx.channelKey}${record ? `_r${record.sequence}` : ''}`.replace(/[^A-Za-z0-9_]+/g, '_').toLowerCase();
@@ -126,7 +126,7 @@ export function calibrationRoutes({ dataSource, mailer, config }: AppDeps): Rout
       },
     }),
     defineRoute({
-      method: 'get', path: '/:id/export.json', access: CALIBRATION_READERS, params: idParamSchema, query: exportQuery,
+      method: 'get', path: '/:id/export.json', access: ROLE_GROUPS.everyone, params: idParamSchema, query: exportQuery,
       handler: async ({ params, query, res }) => {
         const { ctx, fit, record } = await exportSource(dataSource, params.id, query.record);
         const name = `tallyvolt-${ctx.serialNumber}-${ctx.channelKey}${record ? `-r${record.sequence}` : ''}.json`;

@@ -2,6 +2,7 @@ import { inviteAcceptSchema, inviteCreateSchema, inviteTokenSchema } from '../..
 import { z } from 'zod';
 import type { AppDeps } from '../../common/deps.js';
 import { defineRoute, type RouteSpec } from '../../common/routes.js';
+import { ROLE_GROUPS } from '../../../shared/schemas/roles.js';
 import { toPublicUser } from '../users/users.mapper.js';
 import { acceptInvite, createInvite, findUsableInvite } from './invites.service.js';
 import type { RequestHandler } from 'express';
@@ -13,10 +14,10 @@ const tokenParams = z.strictObject({ token: inviteTokenSchema });
 export function invitesRoutes({ dataSource, mailer, config }: AppDeps, limit: RequestHandler): RouteSpec[] {
   return [
     defineRoute({
-      method: 'post', path: '', access: ['admin'], body: inviteCreateSchema,
+      method: 'post', path: '', access: ROLE_GROUPS.administrators, body: inviteCreateSchema,
       handler: async ({ body, user, req, res }) => {
         const baseUrl = publicBaseUrl(config, req);
-        const invite = await createInvite(dataSource, mailer, user!, body, baseUrl);
+        const invite = await createInvite(dataSource, mailer, user, body, baseUrl);
         const view: Invite = { id: invite.id, email: invite.email, role: invite.role, expiresAt: invite.expiresAt.toISOString() };
         res.status(201).json({ invite: view });
       },

@@ -4,7 +4,7 @@ import { marginStudyRequestSchema } from '../../../shared/schemas/margin.js';
 import { marginInputsSaveSchema } from '../../../shared/schemas/margin-inputs-save.js';
 import type { AppDeps } from '../../common/deps.js';
 import { defineRoute, type RouteSpec } from '../../common/routes.js';
-import { DESIGN_READERS, DESIGN_WRITERS } from '../designs/designs.router.js';
+import { ROLE_GROUPS } from '../../../shared/schemas/roles.js';
 import { getRevision } from '../revisions/revisions.service.js';
 import { toRunView } from '../runs/runs.mapper.js';
 import { listRuns } from '../runs/runs.service.js';
@@ -12,8 +12,6 @@ import { currentRunHash, marginInputsOf, requestMarginStudy, saveMarginInputs, t
 import { isoTime } from '../../common/iso-time.js';
 import type { MarginInputsView } from '../../../shared/schemas/run-views.js';
 
-/** The margin study is the lead's tool, and designers need it finished before they submit. */
-export const MARGIN_RUNNERS = ['designer', 'lead', 'admin'] as const;
 const noQuery = z.strictObject({});
 
 const inputsView = (s: StoredMarginInputs, editable: boolean): MarginInputsView => ({
@@ -25,28 +23,28 @@ const inputsView = (s: StoredMarginInputs, editable: boolean): MarginInputsView 
 export function marginRoutes({ dataSource, scheduler }: AppDeps): RouteSpec[] {
   return [
     defineRoute({
-      method: 'get', path: '/:id/margin-inputs', access: DESIGN_READERS, params: idParamSchema,
+      method: 'get', path: '/:id/margin-inputs', access: ROLE_GROUPS.everyone, params: idParamSchema,
       handler: async ({ params, res }) => {
         const revision = await getRevision(dataSource, params.id);
         res.json(inputsView(await marginInputsOf(dataSource, params.id), revision.state === 'draft'));
       },
     }),
     defineRoute({
-      method: 'put', path: '/:id/margin-inputs', access: DESIGN_WRITERS, params: idParamSchema, body: marginInputsSaveSchema,
+      method: 'put', path: '/:id/margin-inputs', access: ROLE_GROUPS.designWriters, params: idParamSchema, body: marginInputsSaveSchema,
       handler: async ({ params, body, user, res }) => {
         const { baseVersion, ...inputs } = body;
-        res.json(inputsView(await saveMarginInputs(dataSource, user!, params.id, inputs, baseVersion), true));
+        res.json(inputsView(await saveMarginInputs(dataSource, user, params.id, inputs, baseVersion), true));
       },
     }),
     defineRoute({
-      method: 'post', path: '/:id/margin-studies', access: MARGIN_RUNNERS, params: idParamSchema, body: marginStudyRequestSchema.default({ trials: 100_000, faultTrials: 10_000, readingErrorTrials: 20_000 }),
+      method: 'post', path: '/:id/margin-studies', access: ROLE_GROUPS.marginRunners, params: idParamSchema, body: marginStudyRequestSchema.default({ trials: 100_000, faultTrials: 10_000, readingErrorTrials: 20_000 }),
       handler: async ({ params, body, user, res }) => {
-        const run = await requestMarginStudy(dataSource, scheduler, user!, params.id, body);
+        const run = await requestMarginStudy(dataSource, scheduler, user, params.id, body);
         res.status(202).json({ run: { ...toRunView(run, 0), inputs: undefined } });
       },
     }),
     defineRoute({
-      method: 'get', path: '/:id/margin-studies', access: DESIGN_READERS, params: idParamSchema, query: noQuery,
+      method: 'get', path: '/:id/margin-studies', access: ROLE_GROUPS.everyone, params: idParamSchema, query: noQuery,
       handler: async ({ params, res }) => {
         const revision = await getRevision(dataSource, params.id);
         const hash = await currentRunHash(dataSource, revision, 'margin');

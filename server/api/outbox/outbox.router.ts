@@ -1,6 +1,7 @@
 import { listQuerySchema } from '../../../shared/schemas/common.js';
 import type { AppDeps } from '../../common/deps.js';
 import { defineRoute, type RouteSpec } from '../../common/routes.js';
+import { ROLE_GROUPS } from '../../../shared/schemas/roles.js';
 import { listOutbox } from './outbox.service.js';
 import { isoTime } from '../../common/iso-time.js';
 import type { OutboxList } from '../../../shared/schemas/admin-views.js';
@@ -8,7 +9,7 @@ import type { OutboxList } from '../../../shared/schemas/admin-views.js';
 export function outboxRoutes({ dataSource }: AppDeps): RouteSpec[] {
   return [
     defineRoute({
-      method: 'get', path: '', access: ['admin'], query: listQuerySchema,
+      method: 'get', path: '', access: ROLE_GROUPS.administrators, query: listQuerySchema,
       handler: async ({ query, res }) => {
         const { items, total } = await listOutbox(dataSource, query.page, query.pageSize);
         const list: OutboxList = {

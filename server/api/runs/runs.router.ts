@@ -3,9 +3,8 @@ import { idParamSchema } from '../../../shared/schemas/common.js';
 import { uncertaintyStudyRequestSchema } from '../../../shared/schemas/runs.js';
 import type { AppDeps } from '../../common/deps.js';
 import { defineRoute, type RouteSpec } from '../../common/routes.js';
-import { DESIGN_READERS, DESIGN_WRITERS } from '../designs/designs.router.js';
+import { ROLE_GROUPS } from '../../../shared/schemas/roles.js';
 import { getRevision } from '../revisions/revisions.service.js';
-import { MARGIN_RUNNERS } from '../margin/margin.router.js';
 import { currentRunHash } from '../margin/margin.service.js';
 import { toRunView } from './runs.mapper.js';
 import type { RunScheduler } from './run-scheduler.js';
@@ -18,14 +17,14 @@ const noQuery = z.strictObject({});
 export function revisionStudiesRoutes({ dataSource }: AppDeps, scheduler: RunScheduler): RouteSpec[] {
   return [
     defineRoute({
-      method: 'post', path: '/:id/studies', access: DESIGN_WRITERS, params: idParamSchema, body: studyBody,
+      method: 'post', path: '/:id/studies', access: ROLE_GROUPS.designWriters, params: idParamSchema, body: studyBody,
       handler: async ({ params, body, user, res }) => {
-        const run = await requestUncertaintyStudy(dataSource, scheduler, user!, params.id, body);
+        const run = await requestUncertaintyStudy(dataSource, scheduler, user, params.id, body);
         res.status(202).json({ run: toRunView(run, 0) });
       },
     }),
     defineRoute({
-      method: 'get', path: '/:id/studies', access: DESIGN_READERS, params: idParamSchema, query: noQuery,
+      method: 'get', path: '/:id/studies', access: ROLE_GROUPS.everyone, params: idParamSchema, query: noQuery,
       handler: async ({ params, res }) => {
         const revision = await getRevision(dataSource, params.id);
         const hash = channelsHash(revision.channels);
@@ -39,7 +38,7 @@ export function revisionStudiesRoutes({ dataSource }: AppDeps, scheduler: RunSch
 export function runsRoutes({ dataSource }: AppDeps, scheduler: RunScheduler): RouteSpec[] {
   return [
     defineRoute({
-      method: 'get', path: '/:id', access: DESIGN_READERS, params: idParamSchema,
+      method: 'get', path: '/:id', access: ROLE_GROUPS.everyone, params: idParamSchema,
       handler: async ({ params, res }) => {
         const run = await getRun(dataSource, params.id);
         const revision = await getRevision(dataSource, run.revisionId);
@@ -47,9 +46,9 @@ export function runsRoutes({ dataSource }: AppDeps, scheduler: RunScheduler): Ro
       },
     }),
     defineRoute({
-      method: 'post', path: '/:id/cancel', access: MARGIN_RUNNERS, params: idParamSchema,
+      method: 'post', path: '/:id/cancel', access: ROLE_GROUPS.marginRunners, params: idParamSchema,
       handler: async ({ params, user, res }) => {
-        await cancelRun(dataSource, scheduler, user!, params.id);
+        await cancelRun(dataSource, scheduler, user, params.id);
         res.status(202).json({ ok: true });
       },
     }),

@@ -6,17 +6,15 @@ import { streamCsv, type CsvValue } from '../../common/csv-write.js';
 import type { StockPart } from '../../entities/StockPart.js';
 import type { AppDeps } from '../../common/deps.js';
 import { defineRoute, type RouteSpec } from '../../common/routes.js';
+import { ROLE_GROUPS } from '../../../shared/schemas/roles.js';
 import { csvUpload } from '../../common/upload.js';
 import { previewStockCsv, stockCsvRow } from './stock.csv.js';
 import { createStockPart, deleteStockPart, importStock, listStock, stockInPages, stockRoom, updateStockPart } from './stock.service.js';
 import type { StockImportOutcome, StockPreview } from '../../../shared/schemas/stock-views.js';
 
-const WRITERS = ['designer', 'admin'] as const;
-
 async function* rowsOf(pages: AsyncIterable<StockPart[]>): AsyncGenerator<CsvValue[][]> {
   for await (const page of pages) yield page.map(stockCsvRow);
 }
-const READERS = ['designer', 'admin', 'tester', 'lead'] as const;
 const importQuery = z.strictObject({
   mode: z.enum(['preview', 'all', 'valid-only'], { error: 'mode must be preview, all or valid-only' }).default('preview'),
 });
@@ -24,11 +22,11 @@ const importQuery = z.strictObject({
 export function stockRoutes({ dataSource }: AppDeps): RouteSpec[] {
   return [
     defineRoute({
-      method: 'get', path: '', access: READERS, query: stockListQuerySchema,
+      method: 'get', path: '', access: ROLE_GROUPS.everyone, query: stockListQuerySchema,
       handler: async ({ query, res }) => { res.json(await listStock(dataSource, query)); },
     }),
     defineRoute({
-      method: 'get', path: '/export.csv', access: READERS,
+      method: 'get', path: '/export.csv', access: ROLE_GROUPS.everyone,
       handler: async ({ res }) => {
         res.type('text/csv').attachment('tallyvolt-stock.csv');
         try {
@@ -42,19 +40,19 @@ export function stockRoutes({ dataSource }: AppDeps): RouteSpec[] {
       },
     }),
     defineRoute({
-      method: 'post', path: '', access: WRITERS, body: stockPartSchema,
-      handler: async ({ body, user, res }) => { res.status(201).json({ part: await createStockPart(dataSource, user!, body) }); },
+      method: 'post', path: '', access: ROLE_GROUPS.stockKeepers, body: stockPartSchema,
+      handler: async ({ body, user, res }) => { res.status(201).json({ part: await createStockPart(dataSource, user, body) }); },
     }),
     defineRoute({
-      method: 'patch', path: '/:id', access: WRITERS, params: idParamSchema, body: stockPartPatchSchema,
-      handler: async ({ params, body, user, res }) => { res.json({ part: await updateStockPart(dataSource, user!, params.id, body) }); },
+      method: 'patch', path: '/:id', access: ROLE_GROUPS.stockKeepers, params: idParamSchema, body: stockPartPatchSchema,
+      handler: async ({ params, body, user, res }) => { res.json({ part: await updateStockPart(dataSource, user, params.id, body) }); },
     }),
     defineRoute({
-      method: 'delete', path: '/:id', access: WRITERS, params: idParamSchema,
-      handler: async ({ params, user, res }) => { await deleteStockPart(dataSource, user!, params.id); res.status(204).end(); },
+      method: 'delete', path: '/:id', access: ROLE_GROUPS.stockKeepers, params: idParamSchema,
+      handler: async ({ params, user, res }) => { await deleteStockPart(dataSource, user, params.id); res.status(204).end(); },
     }),
     defineRoute({
-      method: 'post', path: '/import', access: WRITERS, query: importQuery, before: [csvUpload],
+      method: 'post', path: '/import', access: ROLE_GROUPS.stockKeepers, query: importQuery, before: [csvUpload],
       handler: async ({ query, user, req, res }) => {
         const checked = previewStockCsv(readCsv(req.file!.buffer));
         if (query.mode === 'preview') {
@@ -62,7 +60,7 @@ export function stockRoutes({ dataSource }: AppDeps): RouteSpec[] {
           res.json(preview);
           return;
         }
-        const imported = await importStock(dataSource, user!, checked, query.mode === 'valid-only');
+        const imported = await importStock(dataSource, user, checked, query.mode === 'valid-only');
         const outcome: StockImportOutcome = { imported, skipped: checked.invalidCount, problems: checked.problems };
         res.status(201).json(outcome);
       },
