@@ -1,4 +1,5 @@
 import type { RouteLocationNormalized, RouteLocationRaw } from 'vue-router';
+import { ROLE_GROUPS } from '@shared/schemas/roles';
 import { useSessionStore } from '@/stores/session';
 import { notify } from '@/composables/useNotices';
 
@@ -19,9 +20,9 @@ export async function sessionGuard(to: RouteLocationNormalized): Promise<true | 
   if (to.meta.public) return true;
   if (!session.signedIn) return { name: 'sign-in', query: { next: to.fullPath } };
 
-  const roles = to.meta.roles;
-  if (roles && !session.can(...roles)) {
-    const allowed = roles.join(' or ');
+  const may = to.meta.may;
+  if (may && !session.can(may)) {
+    const allowed = ROLE_GROUPS[may].join(' or ');
     notify.warn('Not available to your role', `${to.meta.area ?? 'That page'} is for the ${allowed} role.`);
     return { name: 'home' };
   }

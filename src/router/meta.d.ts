@@ -1,5 +1,5 @@
 import 'vue-router';
-import type { Role } from '@/services/users';
+import type { RoleGroup } from '@shared/schemas/roles';
 
 export {};
 
@@ -11,8 +11,8 @@ declare module 'vue-router' {
     public?: boolean;
     /** Drawn without the top bar (sign-in, invitation). */
     bare?: boolean;
-    /** Roles allowed in; absent means any signed-in person. */
-    roles?: Role[];
+    /** The role group allowed in; absent means any signed-in person. */
+    may?: RoleGroup;
     /** Uses the full window width (editors, wide tables) instead of the reading measure. */
     wide?: boolean;
     /** How the page is named when someone without the role is turned away. */

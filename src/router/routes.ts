@@ -118,13 +118,13 @@ export const routes: RouteRecordRaw[] = [
     path: '/people',
     name: 'people',
     component: () => import('@/pages/UsersPage.vue'),
-    meta: { title: 'People', roles: ['admin'], area: 'People' },
+    meta: { title: 'People', may: 'administrators', area: 'People' },
   },
   {
     path: '/outbox',
     name: 'outbox',
     component: () => import('@/pages/OutboxPage.vue'),
-    meta: { title: 'Outbox', roles: ['admin'], area: 'Outbox' },
+    meta: { title: 'Outbox', may: 'administrators', area: 'Outbox' },
   },
   {
     path: '/:pathMatch(.*)*',

@@ -3,6 +3,7 @@ import { defineStore } from 'pinia';
 import { authApi, type SignInRequest } from '@/services/auth';
 import { isApiError } from '@/services/apiError';
 import { resetSessionExpiry } from '@/services/http';
+import { ROLE_GROUPS, type RoleGroup } from '@shared/schemas/roles';
 import type { Role, User } from '@/services/users';
 
 export const useSessionStore = defineStore('session', () => {
@@ -57,8 +58,9 @@ export const useSessionStore = defineStore('session', () => {
     loaded.value = true;
   }
 
-  function can(...roles: Role[]): boolean {
-    return role.value !== null && roles.includes(role.value);
+  /** Whether the signed-in person may do what the group names; the API's route rules read the same groups. */
+  function can(group: RoleGroup): boolean {
+    return role.value !== null && (ROLE_GROUPS[group] as readonly Role[]).includes(role.value);
   }
 
   return { user, role, signedIn, loaded, load, signIn, signOut, adopt, forget, can };
