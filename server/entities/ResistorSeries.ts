@@ -1,9 +1,9 @@
 import { Column, Entity, PrimaryColumn } from 'typeorm';
 
-/** An IEC 60063 series (E3…E192), one decade of values in [1, 10); read-only reference data. */
+/** A named list of preferred values, one decade in [1, 10): an IEC 60063 series (standard, read-only) or the team's own. */
 @Entity('resistor_series')
 export class ResistorSeries {
-  @PrimaryColumn('varchar', { length: 8 })
+  @PrimaryColumn('varchar', { length: 40 })
   name: string;
 
   @Column('integer')
@@ -11,4 +11,8 @@ export class ResistorSeries {
 
   @Column('simple-json')
   values: number[];
+
+  /** seeded from IEC 60063 by migration; never edited or deleted through the API */
+  @Column('boolean', { default: false })
+  standard: boolean;
 }

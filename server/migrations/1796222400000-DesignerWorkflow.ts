@@ -1,5 +1,4 @@
 import { Table, type MigrationInterface, type QueryRunner } from 'typeorm';
-import { E_SERIES_MANTISSAS } from '../../shared/eseries/index.js';
 import { createdColumn, dateTimeType, idColumn } from './portable.js';
 
 export class DesignerWorkflow1796222400000 implements MigrationInterface {
@@ -107,10 +106,7 @@ export class DesignerWorkflow1796222400000 implements MigrationInterface {
         { name: 'FK_analysis_runs_requested_by', columnNames: ['requestedById'], referencedTableName: 'users', referencedColumnNames: ['id'], onDelete: 'RESTRICT' },
       ],
     }));
-    // IEC 60063 reference tables: data, not computed, written once here.
-    for (const [name, values] of Object.entries(E_SERIES_MANTISSAS)) {
-      await q.manager.insert('resistor_series', { name, valuesPerDecade: values.length, values: JSON.stringify(values) });
-    }
+    // The IEC 60063 rows are written by OwnSeries1796271300000, once the table has its final columns.
   }
 
   async down(q: QueryRunner): Promise<void> {

@@ -1,9 +1,1 @@
-export { E_SERIES_MANTISSAS } from './e-series-tables.js';
-export type { ESeriesName } from './e-series-tables.js';
-export {
-  listESeriesNames,
-  isESeriesName,
-  eSeriesMantissas,
-  eSeriesValuesInRange,
-  nearestESeriesValue,
-} from './e-series-values.js';
+export { checkDecadeValues, decadeValuesInRange, nearestDecadeValue } from './e-series-values.js';

@@ -90,7 +90,7 @@ function runSearch(plan: SearchPlan, tables: TableCache): { candidates: FinderRe
 
 /**
  * Ranked divider candidates for a measurement channel: a top string of minTopCount…maxTopCount
- * resistors and one bottom resistor from an E-series (IEC 60063) or a stock list, aiming at the
+ * resistors and one bottom resistor from a stored series (IEC 60063 or a team's own) or a stock list, aiming at the
  * target ratio fullScaleVolts/maxInputVolts (or targetRatio) as the converter sees it: the bottom
  * resistor in parallel with inputResistanceOhms, and the bias current's offset ±I_b·(R_t‖R_b')
  * counted at its worst sign at maxInputVolts. Equal-value strings are always searched exactly;
@@ -100,7 +100,7 @@ function runSearch(plan: SearchPlan, tables: TableCache): { candidates: FinderRe
  * @returns candidates within the tolerance, best first (at most maxCandidates); when none is, the
  *   closest found outside it; and what was not searched
  * @throws Error naming the first bad field of the request
- * @example findDividers({ maxInputVolts: 462, fullScaleVolts: 1.85, series: 'E96', minTopCount: 4, maxTopCount: 4 }).candidates[0]
+ * @example findDividers({ maxInputVolts: 462, fullScaleVolts: 1.85, series: storedE96, minTopCount: 4, maxTopCount: 4 }).candidates[0]
  */
 export function findDividers(request: FinderRequest): FinderResult {
   const plan = planSearch(request);

@@ -2,7 +2,7 @@
  * Checks a divider-finder request and turns it into the search inputs:
  * target ratio, sorted candidate values with stock and ratings.
  */
-import { eSeriesValuesInRange, isESeriesName } from '../eseries/e-series-values.js';
+import { decadeValuesInRange } from '../eseries/e-series-values.js';
 import { MAX_TOP_RESISTORS } from '../schemas/chain.js';
 import type { FinderLimits, FinderRequest } from './finder-types.js';
 
@@ -64,12 +64,19 @@ function targetRatioOf(request: FinderRequest): number {
 function valuesOf(request: FinderRequest, limits: FinderLimits): SearchValue[] {
   if ((request.series === undefined) === (request.stock === undefined)) throw new Error('give exactly one of series and stock');
   if (request.series !== undefined) {
-    if (!isESeriesName(request.series)) throw new Error('series must be one of E3, E6, E12, E24, E48, E96, E192');
+    const { name, values } = request.series;
+    if (typeof name !== 'string' || name === '') throw new Error('series.name must be given');
     const minOhms = positive(limits.minOhms, 'limits.minOhms', 10);
     const maxOhms = positive(limits.maxOhms, 'limits.maxOhms', 100e6);
     if (maxOhms < minOhms) throw new Error('limits.maxOhms must be ≥ limits.minOhms');
     const unlimited = { quantity: Infinity, maxVolts: Infinity, maxWatts: Infinity };
-    return eSeriesValuesInRange(request.series, minOhms, maxOhms).map((ohms) => ({ ohms, ...unlimited }));
+    let ohms: number[];
+    try {
+      ohms = decadeValuesInRange(values, minOhms, maxOhms);
+    } catch (error) {
+      throw new Error(`series ${name}: ${(error as Error).message}`);
+    }
+    return ohms.map((value) => ({ ohms: value, ...unlimited }));
   }
   const merged = new Map<number, SearchValue>();
   for (const item of request.stock ?? []) {
@@ -97,7 +104,7 @@ function valuesOf(request: FinderRequest, limits: FinderLimits): SearchValue[] {
  * Validate a finder request and derive the search plan (target ratio = fullScaleVolts/maxInputVolts).
  * @param request see FinderRequest; volts in V, ohms in Ω, watts in W, amps in A
  * @throws Error naming the first bad field
- * @example planSearch({ maxInputVolts: 500, fullScaleVolts: 2, series: 'E96' }).targetRatio // 0.004
+ * @example planSearch({ maxInputVolts: 500, fullScaleVolts: 2, series: storedE96 }).targetRatio // 0.004
  */
 export function planSearch(request: FinderRequest): SearchPlan {
   if (request === null || typeof request !== 'object') throw new Error('request must be an object');

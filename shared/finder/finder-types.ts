@@ -1,7 +1,11 @@
 /**
  * Request and result shapes of the divider finder.
  */
-import type { ESeriesName } from '../eseries/e-series-tables.js';
+/** A stored series of preferred values: one decade, ascending in [1, 10) (an IEC 60063 series or a team's own). */
+export interface SeriesValues {
+  name: string;
+  values: readonly number[];
+}
 
 /** A resistor value on hand, with how many are in stock and optional ratings. */
 export interface StockItem {
@@ -39,8 +43,8 @@ export interface FinderRequest {
   fullScaleVolts?: number;
   /** or the wanted ratio Vout/Vin = bottom / (top + bottom), 0 < ratio < 1 */
   targetRatio?: number;
-  /** an IEC 60063 series to draw values from … */
-  series?: ESeriesName;
+  /** a stored series to draw values from, in every decade … */
+  series?: SeriesValues;
   /** … or a stock list (exactly one of series and stock) */
   stock?: readonly StockItem[];
   /** bounds of the number of resistors in the top string, 1…8 (defaults 1 and 4) */

@@ -1,5 +1,5 @@
 export { findDividers, CLOSEST_SHOWN, MAX_HALF_STRINGS, MIXED_WORK_BUDGET } from './find-dividers.js';
-export type { DividerCandidate, FinderLimits, FinderRequest, FinderResult, StockItem } from './finder-types.js';
+export type { DividerCandidate, FinderLimits, FinderRequest, FinderResult, SeriesValues, StockItem } from './finder-types.js';
 export { planSearch } from './finder-request.js';
 export type { SearchPlan, SearchValue } from './finder-request.js';
 export { compareCandidates } from './candidate-ranking.js';

@@ -12,6 +12,14 @@ export interface Invite {
 /** What an invitation link reveals before it is accepted. */
 export type InviteDetails = Omit<Invite, 'id'>;
 
+/** An invitation not yet accepted, as the admins' list shows it. */
+export interface PendingInvite extends Invite {
+  /** When the current link was made (the first sending, or the last resend). */
+  sentAt: string;
+  invitedBy: string | null;
+  expired: boolean;
+}
+
 export interface OutboxMessage {
   id: number;
   to: string;
@@ -27,9 +35,3 @@ export interface OutboxList {
   total: number;
 }
 
-/** An IEC 60063 series: its values in one decade, [1, 10). */
-export interface ResistorSeries {
-  name: string;
-  valuesPerDecade: number;
-  values: number[];
-}

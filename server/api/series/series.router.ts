@@ -1,13 +1,18 @@
 import { z } from 'zod';
 import type { AppDeps } from '../../common/deps.js';
+import { readCsv } from '../../common/csv.js';
 import { defineRoute, type RouteSpec } from '../../common/routes.js';
-import { getSeries, listSeries } from './series.service.js';
-import type { ResistorSeries as SeriesView } from '../../../shared/schemas/admin-views.js';
+import { csvUpload } from '../../common/upload.js';
+import { seriesCreateSchema, seriesImportQuerySchema, seriesNameParamsSchema, seriesValuesSchema } from '../../../shared/schemas/series.js';
+import type { ResistorSeries as SeriesView, SeriesImportOutcome } from '../../../shared/schemas/series-views.js';
 import type { ResistorSeries } from '../../entities/ResistorSeries.js';
+import { previewSeriesCsv } from './series.csv.js';
+import { createSeries, deleteSeries, getSeries, importSeries, listSeries, replaceSeriesValues } from './series.service.js';
 
-const nameParams = z.strictObject({ name: z.string().regex(/^[Ee]\d{1,3}$/, { error: 'series name looks like E24' }) });
+const WRITERS = ['designer', 'admin'] as const;
+const valuesBody = z.strictObject({ values: seriesValuesSchema });
 
-const toSeriesView = (s: ResistorSeries): SeriesView => ({ name: s.name, valuesPerDecade: s.valuesPerDecade, values: s.values });
+const toSeriesView = (s: ResistorSeries): SeriesView => ({ name: s.name, valuesPerDecade: s.valuesPerDecade, values: s.values, standard: s.standard });
 
 export function seriesRoutes({ dataSource }: AppDeps): RouteSpec[] {
   return [
@@ -16,8 +21,33 @@ export function seriesRoutes({ dataSource }: AppDeps): RouteSpec[] {
       handler: async ({ res }) => { res.json({ items: (await listSeries(dataSource)).map(toSeriesView) }); },
     }),
     defineRoute({
-      method: 'get', path: '/:name', access: 'signed-in', params: nameParams,
+      method: 'post', path: '', access: WRITERS, body: seriesCreateSchema,
+      handler: async ({ body, user, res }) => { res.status(201).json({ series: toSeriesView(await createSeries(dataSource, user!, body)) }); },
+    }),
+    defineRoute({
+      method: 'post', path: '/import', access: WRITERS, query: seriesImportQuerySchema, before: [csvUpload],
+      handler: async ({ query, user, req, res }) => {
+        const preview = previewSeriesCsv(query.name, readCsv(req.file!.buffer));
+        if (query.mode === 'preview') {
+          res.json(preview);
+          return;
+        }
+        const series = await importSeries(dataSource, user!, preview, query.mode === 'valid-only');
+        const outcome: SeriesImportOutcome = { series: toSeriesView(series), imported: series.valuesPerDecade, skipped: preview.invalidCount, problems: preview.problems };
+        res.status(201).json(outcome);
+      },
+    }),
+    defineRoute({
+      method: 'get', path: '/:name', access: 'signed-in', params: seriesNameParamsSchema,
       handler: async ({ params, res }) => { res.json({ series: toSeriesView(await getSeries(dataSource, params.name)) }); },
+    }),
+    defineRoute({
+      method: 'put', path: '/:name', access: WRITERS, params: seriesNameParamsSchema, body: valuesBody,
+      handler: async ({ params, body, user, res }) => { res.json({ series: toSeriesView(await replaceSeriesValues(dataSource, user!, params.name, body.values)) }); },
+    }),
+    defineRoute({
+      method: 'delete', path: '/:name', access: WRITERS, params: seriesNameParamsSchema,
+      handler: async ({ params, user, res }) => { await deleteSeries(dataSource, user!, params.name); res.status(204).end(); },
     }),
   ];
 }

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { eSeriesValuesInRange } from '../../../shared/eseries/index.js';
 import { findDividers } from '../../../shared/finder/index.js';
 import type { FinderRequest, StockItem } from '../../../shared/finder/index.js';
+import { fixtureSeries, fixtureValuesInRange } from '../../helpers/stored-series.js';
 
 interface Shelf { ohms: number; quantity: number }
 interface Brute { errors: number[]; keys: string[] }
@@ -47,7 +47,7 @@ function bruteForce(shelf: Shelf[], length: number, request: { targetRatio: numb
 }
 
 const seriesShelf = (name: 'E6' | 'E12', minOhms: number, maxOhms: number): Shelf[] =>
-  eSeriesValuesInRange(name, minOhms, maxOhms).map((ohms) => ({ ohms, quantity: Infinity }));
+  fixtureValuesInRange(name, minOhms, maxOhms).map((ohms) => ({ ohms, quantity: Infinity }));
 
 describe('the mixed-string search against trying every combination', () => {
   it.each([
@@ -57,7 +57,7 @@ describe('the mixed-string search against trying every combination', () => {
   ] as const)('finds the same best errors as every three-resistor $series string with every bottom, $label', ({ series, targetRatio, inputResistanceOhms, inputBiasAmps }) => {
     const request = { maxInputVolts: 462, targetRatio, inputResistanceOhms, inputBiasAmps };
     const brute = bruteForce(seriesShelf(series, 1e3, 1e6), 3, request);
-    const found = findDividers({ ...request, series, limits: { minOhms: 1e3, maxOhms: 1e6 }, minTopCount: 3, maxTopCount: 3, mixedTopStrings: true, maxCandidates: 40 });
+    const found = findDividers({ ...request, series: fixtureSeries(series), limits: { minOhms: 1e3, maxOhms: 1e6 }, minTopCount: 3, maxTopCount: 3, mixedTopStrings: true, maxCandidates: 40 });
     expect(found.notSearched).toEqual([]);
     expect(found.candidates[0].worstCaseErrorFraction).toBeCloseTo(brute.errors[0], 15); // exhaustive enumeration over every multiset and bottom (in this test)
     found.candidates.forEach((candidate, i) => expect(candidate.worstCaseErrorFraction).toBeCloseTo(brute.errors[i], 15)); // same enumeration, the 40 best
@@ -66,7 +66,7 @@ describe('the mixed-string search against trying every combination', () => {
   it('finds the same best errors as every four-resistor E6 string under a per-resistor voltage limit', () => {
     const request = { maxInputVolts: 462, targetRatio: 0.004, inputResistanceOhms: 10e6, maxVoltsPerResistor: 150 };
     const brute = bruteForce(seriesShelf('E6', 1e3, 10e6), 4, request);
-    const found = findDividers({ ...request, series: 'E6', limits: { minOhms: 1e3, maxOhms: 10e6, maxVoltsPerResistor: 150 }, minTopCount: 4, maxTopCount: 4, mixedTopStrings: true, maxCandidates: 30 });
+    const found = findDividers({ ...request, series: fixtureSeries('E6'), limits: { minOhms: 1e3, maxOhms: 10e6, maxVoltsPerResistor: 150 }, minTopCount: 4, maxTopCount: 4, mixedTopStrings: true, maxCandidates: 30 });
     expect(found.candidates).toHaveLength(30);
     found.candidates.forEach((candidate, i) => expect(candidate.worstCaseErrorFraction).toBeCloseTo(brute.errors[i], 15)); // exhaustive enumeration (in this test)
   });
@@ -92,19 +92,19 @@ describe('mixed strings the search covers and the ones it names', () => {
   const target = 16.2e3 / (1e6 + 2.49e6 + 301e3 + 16.2e3); // 1 MΩ + 2.49 MΩ + 301 kΩ over 16.2 kΩ, all E96 (IEC 60063)
 
   it('hits a target that a mixed string of three E96 values meets exactly, and says nothing was left out', () => {
-    const found = findDividers({ maxInputVolts: 462, targetRatio: target, series: 'E96', minTopCount: 3, maxTopCount: 3, mixedTopStrings: true });
+    const found = findDividers({ maxInputVolts: 462, targetRatio: target, series: fixtureSeries('E96'), minTopCount: 3, maxTopCount: 3, mixedTopStrings: true });
     expect(found.candidates[0].ratioErrorFraction).toBeCloseTo(0, 12); // by construction of the target
     expect(found.notSearched).toEqual([]);
   });
 
   it('says so when only equal values were searched', () => {
-    const found = findDividers({ maxInputVolts: 462, targetRatio: target, series: 'E96', minTopCount: 3, maxTopCount: 3 });
+    const found = findDividers({ maxInputVolts: 462, targetRatio: target, series: fixtureSeries('E96'), minTopCount: 3, maxTopCount: 3 });
     expect(Math.abs(found.candidates[0].ratioErrorFraction)).toBeGreaterThan(1e-4); // three equal E96 values miss it (by this search)
     expect(found.notSearched).toEqual(['Only top strings of equal values were searched; strings of different values were not asked for.']);
   });
 
   it('names every string length it could not search and still searches its equal strings', () => {
-    const request: FinderRequest = { maxInputVolts: 462, fullScaleVolts: 1.85, series: 'E96', minTopCount: 2, maxTopCount: 8, mixedTopStrings: true, maxCandidates: 1000 };
+    const request: FinderRequest = { maxInputVolts: 462, fullScaleVolts: 1.85, series: fixtureSeries('E96'), minTopCount: 2, maxTopCount: 8, mixedTopStrings: true, maxCandidates: 1000 };
     const found = findDividers(request);
     const named = found.notSearched.map((line) => Number(/of (\d) resistors/.exec(line)?.[1]));
     expect(named).toEqual([4, 5, 6, 7, 8]); // pairs of E96 values over 10 Ω–100 MΩ: C(674, 2) ≈ 2.3·10⁵ per half, beyond the step budget at 4

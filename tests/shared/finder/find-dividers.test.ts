@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { findDividers as findAll } from '../../../shared/finder/index.js';
 import type { DividerCandidate, FinderRequest } from '../../../shared/finder/index.js';
+import { fixtureSeries } from '../../helpers/stored-series.js';
 
 /** The candidates within the tolerance (all kept ones when none is asked). */
 const findDividers = (request: FinderRequest): DividerCandidate[] => findAll(request).candidates;
@@ -30,7 +31,7 @@ function recompute(candidate: DividerCandidate, maxInputVolts: number) {
 describe('findDividers with an E-series', () => {
   it('finds the exact E96 divider of four 1 MΩ resistors over 16.2 kΩ', () => {
     const targetRatio = 16.2e3 / (4e6 + 16.2e3); // 16.2 is an E96 value, IEC 60063 (via refdata e-series.json)
-    const request = deepFreeze<FinderRequest>({ maxInputVolts: 462, targetRatio, series: 'E96', minTopCount: 4, maxTopCount: 4, maxCandidates: 50 });
+    const request = deepFreeze<FinderRequest>({ maxInputVolts: 462, targetRatio, series: fixtureSeries('E96'), minTopCount: 4, maxTopCount: 4, maxCandidates: 50 });
     const candidates = findDividers(request);
     expect(candidates[0].ratioErrorFraction).toBe(0);
     const exact = candidates.find((c) => c.topOhms.every((r) => r === 1e6) && c.bottomOhms === 16.2e3);
@@ -41,14 +42,14 @@ describe('findDividers with an E-series', () => {
   });
 
   it('derives the target ratio from the converter full scale', () => {
-    const candidates = findDividers({ maxInputVolts: 400, fullScaleVolts: 2, series: 'E24', minTopCount: 1, maxTopCount: 2 });
+    const candidates = findDividers({ maxInputVolts: 400, fullScaleVolts: 2, series: fixtureSeries('E24'), minTopCount: 1, maxTopCount: 2 });
     expect(candidates.length).toBeGreaterThan(0);
     candidates.forEach((c) => expect(c.ratioErrorFraction).toBeCloseTo(c.ratio / (2 / 400) - 1, 12));
     candidates.forEach((c) => expect(c.outputVolts).toBeCloseTo(400 * c.ratio, 12));
   });
 
   it('reports figures that agree with Ohm’s law', () => {
-    for (const c of findDividers({ maxInputVolts: 462, fullScaleVolts: 1.9, series: 'E48', maxTopCount: 3 })) {
+    for (const c of findDividers({ maxInputVolts: 462, fullScaleVolts: 1.9, series: fixtureSeries('E48'), maxTopCount: 3 })) {
       const figures = recompute(c, 462);
       expect(c.totalOhms).toBeCloseTo(figures.totalOhms, 6); // Ohm's law
       expect(c.ratio).toBeCloseTo(figures.ratio, 14);
@@ -59,7 +60,7 @@ describe('findDividers with an E-series', () => {
 
   it('keeps every candidate within the voltage, power, bleed and resistance limits', () => {
     const limits = { maxVoltsPerResistor: 150, maxWattsPerResistor: 0.02, maxBleedAmps: 200e-6, minBleedAmps: 50e-6, minTotalOhms: 2e6, maxTotalOhms: 8e6 };
-    const candidates = findDividers({ maxInputVolts: 462, fullScaleVolts: 2, series: 'E96', minTopCount: 1, maxTopCount: 6, limits, maxCandidates: 200 });
+    const candidates = findDividers({ maxInputVolts: 462, fullScaleVolts: 2, series: fixtureSeries('E96'), minTopCount: 1, maxTopCount: 6, limits, maxCandidates: 200 });
     expect(candidates.length).toBeGreaterThan(0);
     for (const c of candidates) {
       const figures = recompute(c, 462);
@@ -74,7 +75,7 @@ describe('findDividers with an E-series', () => {
   });
 
   it('ranks by ratio error, then parts count, then power, when the converter draws no bias current', () => {
-    const candidates = findDividers({ maxInputVolts: 462, fullScaleVolts: 2, series: 'E24', maxTopCount: 4, maxCandidates: 100 });
+    const candidates = findDividers({ maxInputVolts: 462, fullScaleVolts: 2, series: fixtureSeries('E24'), maxTopCount: 4, maxCandidates: 100 });
     for (let i = 1; i < candidates.length; i++) {
       const [a, b] = [candidates[i - 1], candidates[i]];
       const errorA = Math.abs(a.ratioErrorFraction);
@@ -88,20 +89,20 @@ describe('findDividers with an E-series', () => {
   });
 
   it('finds at least as good a ratio with mixed top strings', () => {
-    const base: FinderRequest = { maxInputVolts: 462, fullScaleVolts: 2.048, series: 'E12', minTopCount: 2, maxTopCount: 3 };
+    const base: FinderRequest = { maxInputVolts: 462, fullScaleVolts: 2.048, series: fixtureSeries('E12'), minTopCount: 2, maxTopCount: 3 };
     const equal = findDividers(base)[0];
     const mixed = findDividers({ ...base, mixedTopStrings: true })[0];
     expect(Math.abs(mixed.ratioErrorFraction)).toBeLessThanOrEqual(Math.abs(equal.ratioErrorFraction));
   });
 
   it('drops candidates beyond the ratio error allowed and returns none when the limits cannot be met', () => {
-    const close = findDividers({ maxInputVolts: 462, fullScaleVolts: 2, series: 'E12', maxRatioErrorFraction: 1e-3, maxCandidates: 100 });
+    const close = findDividers({ maxInputVolts: 462, fullScaleVolts: 2, series: fixtureSeries('E12'), maxRatioErrorFraction: 1e-3, maxCandidates: 100 });
     close.forEach((c) => expect(Math.abs(c.ratioErrorFraction)).toBeLessThanOrEqual(1e-3));
-    expect(findDividers({ maxInputVolts: 462, fullScaleVolts: 2, series: 'E12', limits: { maxTotalOhms: 1e3, maxBleedAmps: 1e-3 } })).toEqual([]);
+    expect(findDividers({ maxInputVolts: 462, fullScaleVolts: 2, series: fixtureSeries('E12'), limits: { maxTotalOhms: 1e3, maxBleedAmps: 1e-3 } })).toEqual([]);
   });
 
   it('stays within the decade range of resistor values', () => {
-    const candidates = findDividers({ maxInputVolts: 462, fullScaleVolts: 2, series: 'E96', limits: { minOhms: 10e3, maxOhms: 1e6 }, maxCandidates: 100 });
+    const candidates = findDividers({ maxInputVolts: 462, fullScaleVolts: 2, series: fixtureSeries('E96'), limits: { minOhms: 10e3, maxOhms: 1e6 }, maxCandidates: 100 });
     candidates.flatMap((c) => [...c.topOhms, c.bottomOhms]).forEach((r) => {
       expect(r).toBeGreaterThanOrEqual(10e3);
       expect(r).toBeLessThanOrEqual(1e6);
@@ -157,7 +158,7 @@ describe('findDividers with a stock list', () => {
 });
 
 describe('findDividers rejects bad requests', () => {
-  const good: FinderRequest = { maxInputVolts: 462, fullScaleVolts: 2, series: 'E24' };
+  const good: FinderRequest = { maxInputVolts: 462, fullScaleVolts: 2, series: fixtureSeries('E24') };
   it.each([
     [{ ...good, maxInputVolts: 0 }, 'maxInputVolts must be > 0'],
     [{ ...good, maxInputVolts: NaN }, 'maxInputVolts must be > 0'],
@@ -167,7 +168,9 @@ describe('findDividers rejects bad requests', () => {
     [{ ...good, fullScaleVolts: undefined, targetRatio: 1.2 }, 'targetRatio must be between 0 and 1'],
     [{ ...good, series: undefined }, 'give exactly one of series and stock'],
     [{ ...good, stock: [{ ohms: 1e3, quantity: 2 }] }, 'give exactly one of series and stock'],
-    [{ ...good, series: 'E7' as 'E6' }, 'series must be one of'],
+    [{ ...good, series: { name: 'E7', values: [] } }, 'series E7: series values must hold at least one value'],
+    [{ ...good, series: { name: 'odd', values: [4.7, 2.2] } }, 'series odd: series values must be strictly ascending'],
+    [{ ...good, series: { name: 'big', values: [10] } }, 'series big: series value 10 must be ≥ 1 and < 10'],
     [{ ...good, series: undefined, stock: [] }, 'stock must hold at least one value'],
     [{ ...good, series: undefined, stock: [{ ohms: -1, quantity: 1 }] }, 'stock ohms must be finite numbers > 0'],
     [{ ...good, series: undefined, stock: [{ ohms: 1e3, quantity: 1.5 }] }, 'stock quantity must be a whole number'],

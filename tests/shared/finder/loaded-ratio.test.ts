@@ -4,6 +4,7 @@ import { findDividers } from '../../../shared/finder/index.js';
 import type { DividerCandidate, FinderRequest } from '../../../shared/finder/index.js';
 import type { ChannelDefinition } from '../../../shared/schemas/chain.js';
 import { demoChannel } from '../../fixtures/demo-channel.js';
+import { fixtureSeries } from '../../helpers/stored-series.js';
 
 /** The channel after "Use candidate": the top string and bottom replaced, every other spec kept. */
 function channelWith(candidate: DividerCandidate): ChannelDefinition {
@@ -17,7 +18,7 @@ function channelWith(candidate: DividerCandidate): ChannelDefinition {
 describe('the ratio the finder reports is the ratio the editor shows', () => {
   const channel = demoChannel(); // 10 MΩ converter input, ±1 nA bias current (invented demo)
   const request: FinderRequest = {
-    maxInputVolts: 462, targetRatio: 0.016, series: 'E192', minTopCount: 1, maxTopCount: 4,
+    maxInputVolts: 462, targetRatio: 0.016, series: fixtureSeries('E192'), minTopCount: 1, maxTopCount: 4,
     inputResistanceOhms: channel.converter.inputResistanceOhm, inputBiasAmps: channel.converter.inputBiasCurrentA,
     limits: { maxVoltsPerResistor: 160, maxWattsPerResistor: 0.2 }, maxRatioErrorFraction: 0.01,
   };

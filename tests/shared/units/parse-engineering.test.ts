@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { formatEng, formatRkm, parseEngineering, parseQuantity, parseRkm } from '../../../shared/units/index.js';
-import { eSeriesValuesInRange } from '../../../shared/eseries/index.js';
+import { fixtureValuesInRange } from '../../helpers/stored-series.js';
 
 describe('parseEngineering', () => {
   it.each([
@@ -117,7 +117,7 @@ describe('RKM codes (IEC 60062)', () => {
   });
 
   it('round-trips every E192 value from 0.1 Ω to 100 GΩ', () => {
-    for (const ohms of eSeriesValuesInRange('E192', 0.1, 100e9)) expect(parseRkm(formatRkm(ohms))).toBe(ohms);
+    for (const ohms of fixtureValuesInRange('E192', 0.1, 100e9)) expect(parseRkm(formatRkm(ohms))).toBe(ohms);
   });
 
   it('rejects values it cannot code', () => {

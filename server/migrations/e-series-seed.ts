@@ -1,11 +1,11 @@
 /**
- * IEC 60063 preferred-number series E3…E192, one decade in [1, 10), held as data.
+ * Seed data for the read-only `resistor_series` rows: the IEC 60063 preferred-number series E3…E192,
+ * one decade in [1, 10). The product reads them from the table; this module is only the migration's input.
  * These are the tabulated values, not 10^(i/n) rounded: E24 has 2.7, 3.0, 3.3, 3.6, 3.9,
  * 4.3, 4.7 and 8.2 where the formula rounds otherwise, and E192 has 9.20 (formula: 9.19).
  */
 
-/** Name of an IEC 60063 series. */
-export type ESeriesName = 'E3' | 'E6' | 'E12' | 'E24' | 'E48' | 'E96' | 'E192';
+type ESeriesName = 'E3' | 'E6' | 'E12' | 'E24' | 'E48' | 'E96' | 'E192';
 
 const E3_MANTISSAS: readonly number[] = Object.freeze([
   1.0, 2.2, 4.7,
