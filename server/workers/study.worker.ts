@@ -37,7 +37,7 @@ export default function runStudyTask(task: StudyTask) {
   report(0);
   if (task.kind === 'channel-blocks') {
     const kernel = channelKernel(compileChannel(task.channel, task.gridPoints));
-    simulateBlocksInto(kernel, task.seed, task.totalTrials, task.firstBlock, task.blockCount, new Float64Array(task.values),
+    simulateBlocksInto(kernel, task.seed, task.totalTrials, task.firstBlock, task.blockCount, new Float64Array(task.values, 0, task.totalTrials * task.outputCount),
       (done, count) => { if (done % 20 === 0) report(done / count); }, { first: task.firstOutput, count: task.outputCount });
     report(1);
     task.port?.close();

@@ -37,6 +37,11 @@ export class RunScheduler {
   private closed = false;
   /** Most bytes of trial values one channel study holds at once (lowered by tests to force passes). */
   valuesBudgetBytes = VALUES_BUDGET_BYTES;
+  /**
+   * Shared arrays of valuesBudgetBytes, reused from study to study: a dropped one lingers until every
+   * worker that saw it collects garbage, so fresh ones per study pile up. At most one per running study.
+   */
+  private readonly freeValues: SharedArrayBuffer[] = [];
 
   constructor(private readonly dataSource: DataSource, private readonly pool: StudyPool) {}
 
@@ -190,7 +195,7 @@ export class RunScheduler {
     for (let pass = 0; pass < passes; pass++) {
       const firstOutput = pass * perPass;
       const outputCount = Math.min(perPass, gridPoints - firstOutput);
-      const values = new SharedArrayBuffer(trials * outputCount * 8);
+      const values = this.freeValues.pop() ?? new SharedArrayBuffer(Math.max(this.valuesBudgetBytes, trials * 8));
       const done = ranges.map(() => 0);
       await Promise.all(ranges.map((range, r) => this.pool.run(
         { kind: 'channel-blocks', channel, gridPoints, seed, totalTrials: trials, ...range, firstOutput, outputCount, values },
@@ -205,6 +210,8 @@ export class RunScheduler {
       outputs.push(...(await Promise.all(Array.from({ length: outputCount }, (_, o) =>
         this.pool.run<OutputSummary[]>({ kind: 'channel-summary', values, totalTrials: trials, outputs: [o], coverageProbability }, { signal }),
       ))).flat());
+      // Handed on only after every task on it has finished: after a failure or cancel one may still be writing
+      if (values.byteLength === this.valuesBudgetBytes) this.freeValues.push(values);
     }
     onProgress(1);
     return assembleChannelStudy(await analytic, { trials, stable: true, outputs, stabilisation: [] }, {
