@@ -37,6 +37,17 @@ export class CalibrationSession {
   @Column('simple-json')
   reference: ReferenceSpec;
 
+  /** The reference instrument's own identifier (asset tag); null when not recorded. */
+  @Column('varchar', { length: 80, nullable: true })
+  referenceInstrumentId: string | null;
+
+  @Column('varchar', { length: 80, nullable: true })
+  referenceCertificate: string | null;
+
+  /** ISO date the reference's calibration falls due; a session performed after it is flagged. */
+  @Column('varchar', { length: 10, nullable: true })
+  referenceDueOn: string | null;
+
   @Column('simple-json')
   fit: FitSettings;
 

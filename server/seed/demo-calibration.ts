@@ -25,6 +25,8 @@ export async function seedDemoCalibration(dataSource: DataSource, tester: User):
     const session = await createSession(dataSource, tester, board.id, {
       channelKey: channel.key, performedOn: '2026-11-20', ambientC: 23.5, note: '',
       reference: { description: 'Bench HV source with a 6½-digit meter on its 1000 V range', percentOfReading: 0.01, plusVolts: 0.05, coverageFactor: 0 },
+      // Invented identifiers: the lab's own asset tag and certificate number.
+      referenceInstrumentId: 'QER-LAB-0042', referenceCertificate: 'QER-CAL-2026-117', referenceDueOn: '2027-05-31',
       fit: { degree: 1, intercept: true, weighted: false },
     });
     const points = SCATTER_HZ.map((scatter, i) => {

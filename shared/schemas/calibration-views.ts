@@ -1,10 +1,11 @@
 import type { CalibrationPointBody, CalibrationState, CsvMapping, FitSettings, ReferenceSpec } from './calibration.js';
 import type { PersonRef } from './design-views.js';
 import type { RowProblem } from './common.js';
+import type { ReferenceTraceability } from './reference-traceability.js';
 import type { ReadingUncertainty } from '../fit/reading-uncertainty.js';
 import type { AcceptanceDecision, GuardedDecision } from '../fit/guarded-acceptance.js';
 
-export type { RowProblem };
+export type { RowProblem, ReferenceTraceability };
 
 /** What the server returns about a calibration; one definition for the server and the client. */
 
@@ -96,6 +97,8 @@ export interface SessionSummary {
   state: CalibrationState;
   performedOn: string;
   ambientC: number;
+  /** The reference instrument's identifier, certificate and due date, flagged when the session came after the due date. */
+  traceability: ReferenceTraceability;
   tester?: PersonRef;
   completedAt: string | null;
   createdAt: string;
@@ -175,5 +178,7 @@ export interface CalibrationOverview {
   population: DesignPopulation;
   boards: { boardId: number; serialNumber: string; sessionId: number | null; gainError: number | null; offsetErrorV: number | null; within: boolean | null;
     /** Guarded acceptance against the design's interval; null without a completed session. */
-    decision: AcceptanceDecision | null }[];
+    decision: AcceptanceDecision | null;
+    /** The latest completed session's reference instrument traceability (overdue: performed after its due date); null without one. */
+    traceability: ReferenceTraceability | null }[];
 }

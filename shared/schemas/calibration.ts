@@ -45,9 +45,29 @@ export const referenceSpecSchema = z.strictObject({
 });
 export type ReferenceSpec = z.infer<typeof referenceSpecSchema>;
 
+const traceText = (name: string) =>
+  z.string({ error: `${name} must be text` }).trim().max(80, { error: `${name} must be at most 80 characters` })
+    .transform((s) => (s === '' ? null : s)).nullable();
+
+/**
+ * The reference instrument's traceability: its own identifier (asset tag), the number of its calibration certificate
+ * and the date that calibration is due. Each may be left empty (null) on a session recorded without them.
+ */
+export const referenceTraceabilityShape = {
+  referenceInstrumentId: traceText('reference instrument identifier'),
+  referenceCertificate: traceText('reference certificate number'),
+  referenceDueOn: z.union([z.literal('').transform(() => null), isoDate('reference calibration due date')]).nullable(),
+};
+const traceabilityDefaults = {
+  referenceInstrumentId: referenceTraceabilityShape.referenceInstrumentId.default(null),
+  referenceCertificate: referenceTraceabilityShape.referenceCertificate.default(null),
+  referenceDueOn: referenceTraceabilityShape.referenceDueOn.default(null),
+};
+
 export const sessionCreateSchema = z.strictObject({
   channelKey: channelKeySchema,
   performedOn: isoDate('date'),
+  ...traceabilityDefaults,
   ambientC: finite('ambient temperature').refine((v) => v >= -40 && v <= 85, { error: 'ambient temperature must be −40…85 °C' }),
   reference: referenceSpecSchema,
   fit: fitSettingsSchema.default({ degree: 1, intercept: true, weighted: true }),
@@ -55,7 +75,8 @@ export const sessionCreateSchema = z.strictObject({
 });
 export type SessionCreateBody = z.infer<typeof sessionCreateSchema>;
 
-export const sessionPatchSchema = sessionCreateSchema.omit({ channelKey: true }).partial();
+// A patch leaves traceability fields it does not name as they are.
+export const sessionPatchSchema = sessionCreateSchema.omit({ channelKey: true }).extend(referenceTraceabilityShape).partial();
 export type SessionPatchBody = z.infer<typeof sessionPatchSchema>;
 
 /** One bench pair: the applied (reference) voltage and what the board measured. */

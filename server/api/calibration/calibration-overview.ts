@@ -5,6 +5,7 @@ import { Channel } from '../../entities/Channel.js';
 import { getSession } from './sessions.service.js';
 import { BOARD_ACCEPTANCE_RULE, compareBoard, designPopulation } from './design-spread.js';
 import { sessionsOfBoards } from '../boards/boards.service.js';
+import { referenceTraceability } from '../../../shared/schemas/reference-traceability.js';
 
 /**
  * Every board of a revision against the design's spread for one channel: the latest completed session's
@@ -19,12 +20,13 @@ export async function calibrationOverview(dataSource: DataSource, revisionId: nu
   for (const board of boards) {
     const latest = sessions.find((s) => s.boardId === board.id);
     if (!latest) {
-      rows.push({ boardId: board.id, serialNumber: board.serialNumber, sessionId: null, gainError: null, offsetErrorV: null, within: null, decision: null });
+      rows.push({ boardId: board.id, serialNumber: board.serialNumber, sessionId: null, gainError: null, offsetErrorV: null, within: null, decision: null, traceability: null });
       continue;
     }
     const session = await getSession(dataSource, latest.id);
     const c = compareBoard(channel.definition, session.ambientC, session.points, session.reference);
-    rows.push({ boardId: board.id, serialNumber: board.serialNumber, sessionId: session.id, gainError: c.board.gainError, offsetErrorV: c.board.offsetErrorV, within: c.within, decision: c.acceptance.decision });
+    rows.push({ boardId: board.id, serialNumber: board.serialNumber, sessionId: session.id, gainError: c.board.gainError, offsetErrorV: c.board.offsetErrorV, within: c.within, decision: c.acceptance.decision,
+      traceability: referenceTraceability(session.performedOn, { instrumentId: session.referenceInstrumentId, certificateNumber: session.referenceCertificate, dueOn: session.referenceDueOn }) });
   }
   return { channelKey, channelName: channel.definition.name, rule: BOARD_ACCEPTANCE_RULE, population: designPopulation(channel.definition, channel.definition.environment.referenceC), boards: rows };
 }

@@ -26,6 +26,8 @@ export interface RecordPayload {
   points: { appliedV: number; frequencyHz: number; counts: number | null; uncertaintyHz: number | null; excluded: boolean; excludedReason: string }[];
   fit: FitView;
   /** volts = Σ c_k·f^k as fitted, and its integer-only form; fixedPoint is null when the fit has none, with the reason. */
+  /** The reference instrument's traceability as recorded; absent from records frozen before it was kept. */
+  referenceTraceability?: { instrumentId: string | null; certificateNumber: string | null; dueOn: string | null };
   reading: { coefficients: number[]; fixedPoint: FixedPointForm | null; notExportable: string | null };
   acceptance: { rule: string; decision: string; within: boolean } | null;
 }
@@ -91,6 +93,7 @@ export async function freezeRecord(m: EntityManager, input: SessionForRecord): P
 /** The session's records without their payloads, oldest first. */
 export function listRecords(db: DataSource | EntityManager, sessionId: number) {
   return db.getRepository(CalibrationRecord).find({
+    referenceTraceability: { instrumentId: s.referenceInstrumentId ?? null, certificateNumber: s.referenceCertificate ?? null, dueOn: s.referenceDueOn ?? null },
     where: { sessionId }, order: { sequence: 'ASC' }, relations: { createdBy: true },
     select: { id: true, sequence: true, sha256: true, createdAt: true, createdBy: { id: true, displayName: true } },
   });

@@ -2,6 +2,7 @@ import type { Board } from '../../entities/Board.js';
 import type { CalibrationRecord } from '../../entities/CalibrationRecord.js';
 import type { CalibrationSession } from '../../entities/CalibrationSession.js';
 import { isoTime, isoTimeOrNull } from '../../common/iso-time.js';
+import { referenceTraceability } from '../../../shared/schemas/reference-traceability.js';
 import type { BoardRow, SessionDetail, SessionSummary, SessionAnalysis } from '../../../shared/schemas/calibration-views.js';
 
 export function toSessionSummary(s: CalibrationSession): SessionSummary {
@@ -12,6 +13,7 @@ export function toSessionSummary(s: CalibrationSession): SessionSummary {
     state: s.state,
     performedOn: s.performedOn,
     ambientC: s.ambientC,
+    traceability: referenceTraceability(s.performedOn, { instrumentId: s.referenceInstrumentId, certificateNumber: s.referenceCertificate, dueOn: s.referenceDueOn }),
     tester: s.tester ? { id: s.tester.id, displayName: s.tester.displayName } : undefined,
     completedAt: isoTimeOrNull(s.completedAt),
     createdAt: isoTime(s.createdAt),

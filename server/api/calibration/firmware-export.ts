@@ -1,5 +1,6 @@
 import type { FitView } from '../../../shared/schemas/calibration-views.js';
 import { fixedPointForm, type FixedPointForm } from '../../../shared/fit/fixed-point.js';
+import type { ReferenceTraceability } from '../../../shared/schemas/reference-traceability.js';
 import { ConflictError } from '../../common/errors.js';
 import { commentText, floatLiteral, identifierPart, stringLiteral } from './c-text.js';
 import { boundText, cReadingCode } from './c-reading.js';
@@ -15,6 +16,8 @@ export interface ExportContext {
   ambientC: number;
   state: string;
   testerName: string;
+  /** The reference's traceability with its overdue flag; all null for a record frozen before it was kept. */
+  traceability?: ReferenceTraceability;
 }
 
 /** Which frozen record an export comes from, and the fixed-point form stored in it (never recomputed). */
@@ -60,7 +63,8 @@ export function cHeader(ctx: ExportContext, fit: FitView, record?: ExportRecord)
  * Tallyvolt calibration coefficients. Generated file: do not edit by hand.
  * Board ${commentText(ctx.serialNumber)}, design "${commentText(ctx.designName)}" revision ${commentText(ctx.revisionLetter)}, channel ${commentText(ctx.channelKey)} (${commentText(ctx.channelName)}).
  * Calibration session ${ctx.sessionId} on ${commentText(ctx.performedOn)} by ${commentText(ctx.testerName)} at ${ctx.ambientC.toFixed(1)} degC; session state: ${commentText(ctx.state)}.
-${recordLine(ctx, record)} * Reading: volts = sum over k of ${lower}_coeff[k] * f^k, with f the measured frequency in Hz (${lower}_volts_float).
+${recordLine(ctx, record)} * ${traceabilityText(ctx.traceability)}
+ * Reading: volts = sum over k of ${lower}_coeff[k] * f^k, with f the measured frequency in Hz (${lower}_volts_float).
  * ${fit.inverse.exact ? 'Exact inverse of the fitted straight line.' : `Least-squares inverse of the degree ${fit.settings.degree} fit; its largest departure is ${fit.inverse.maxInverseErrorV.toExponential(2)} V.`}
  * Fixed point (${lower}_volts_fixed, integers only): the input is f x 2^${fixed.frequencyFracBits} as a uint32_t; u = (input - ${p}_MID_FX) / ${p}_HALF_FX
  * in Q${fixed.uFracBits}, within -1..1 over the calibrated range (inputs beyond half the span outside it are clamped); volts = sum over k of ${lower}_u_q[k] / 2^${lower}_u_shift[k] * u^k by Horner's
@@ -71,6 +75,14 @@ ${recordLine(ctx, record)} * Reading: volts = sum over k of ${lower}_coeff[k] * 
  * Expanded uncertainty (95 %) of one reading, before drift: the fit and a new reading's scatter, the reference${fit.inverse.exact ? '' : ' and the inverse polynomial\'s largest departure (as a rectangular bound)'}: ${uncertaintyLine(fit)}.
  */
 #ifndef ${guard}
+/** The reference instrument line of a header, with the overdue warning where the session came after its due date. */
+export function traceabilityText(t: ReferenceTraceability | undefined): string {
+  if (!t || t.instrumentId === null && t.certificateNumber === null && t.dueOn === null) return 'Reference instrument traceability: not recorded.';
+  const text = `Reference instrument ${t.instrumentId === null ? '(identifier not recorded)' : commentText(t.instrumentId)}, calibration certificate `
+    + `${t.certificateNumber === null ? '(not recorded)' : commentText(t.certificateNumber)}, calibration due ${t.dueOn ?? '(not recorded)'}.`;
+  return t.overdue ? `${text} WARNING: the session was performed after the reference's calibration due date.` : text;
+}
+
 #define ${guard}
 
 #include <stdint.h>
@@ -134,6 +146,8 @@ export function jsonExport(ctx: ExportContext, fit: FitView, record?: ExportReco
       form: 'one reading read back with these coefficients: standard uncertainties in volts (fit and scatter, reference, inverse polynomial departure as a rectangular bound), expanded at 95 %',
       points: fit.readingUncertainty.map((u) => ({
         appliedV: u.appliedV, fitV: u.fitV, referenceV: u.referenceV, inverseV: u.inverseV, newReadingHz: u.newReadingHz, combinedV: u.combinedV,
+    /** Identifier, certificate and due date of the reference instrument (null where not recorded); overdue: performed after the due date. */
+    referenceInstrument: ctx.traceability ?? null,
         degreesOfFreedom: Number.isFinite(u.degreesOfFreedom) ? u.degreesOfFreedom : null, coverageFactor: u.coverageFactor, expandedV: u.expandedV,
       })),
     },

@@ -2,6 +2,7 @@ import type { DataSource } from 'typeorm';
 import type { FitView, SessionAnalysis } from '../../../shared/schemas/calibration-views.js';
 import { ConflictError } from '../../common/errors.js';
 import type { CalibrationSession } from '../../entities/CalibrationSession.js';
+import { referenceTraceability } from '../../../shared/schemas/reference-traceability.js';
 import { freezeRecord, readRecord, recordFixedPoint, type FrozenRecord } from './calibration-records.js';
 import type { ExportContext, ExportRecord } from './firmware-export.js';
 import { analyseSession, getSession, sessionChannel } from './sessions.service.js';
@@ -20,7 +21,7 @@ function fromRecord(record: FrozenRecord): ExportSource {
     ctx: {
       serialNumber: p.board.serialNumber, designName: p.design.name, revisionLetter: p.revision.letter, channelKey: p.channel.key,
       channelName: p.channel.name, sessionId: p.session.id, performedOn: p.session.performedOn, ambientC: p.session.ambientC,
-      state: 'complete', testerName: p.session.tester.displayName,
+      state: 'complete', testerName: p.session.tester.displayName, traceability: referenceTraceability(p.session.performedOn, p.referenceTraceability),
     },
     fit: p.fit,
     record: { sequence: record.sequence, sha256: record.sha256, fixed: recordFixedPoint(record) },
@@ -74,6 +75,8 @@ export async function exportSource(dataSource: DataSource, id: number, sequence?
     },
     fit: analysis.fit,
   };
+      traceability: referenceTraceability(session.performedOn,
+        { instrumentId: session.referenceInstrumentId, certificateNumber: session.referenceCertificate, dueOn: session.referenceDueOn }),
 }
 
 /** A completed session shows the fit of its latest record, the one its exports carry; a draft shows the fit computed now. */
