@@ -6,6 +6,7 @@ export { evaluationGrid } from './grid.js';
 export { nominalFrequencyHz, countsPerReading, frequencyResolutionHz, readingTimeS } from './capture.js';
 export { chainWarnings, MIN_COUNTS_PER_READING, MIN_RANGE_USE_FRACTION, rangeUseFraction } from './warnings.js';
 export { nominalReadouts } from './readouts.js';
+export { isolationWarnings, ISOLATION_WARNING_CODES } from './isolation.js';
 export type { NominalReadouts, GridReadout } from './readouts.js';
 export { boardInputs, readingInputs } from './inputs.js';
 export { compileChannel } from './compile.js';

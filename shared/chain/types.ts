@@ -23,7 +23,10 @@ export interface ChainWarning {
     | 'isolator-rate-exceeded'
     | 'counter-overflow'
     | 'few-counts'
-    | 'rating-missing';
+    | 'rating-missing'
+    | 'isolation-rating-exceeded'
+    | 'isolation-distance-short'
+    | 'isolation-not-checked';
   /** 'info' when a check could not be made (a rating not entered) rather than failed. */
   level: 'warning' | 'info';
   message: string;

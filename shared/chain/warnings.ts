@@ -1,4 +1,5 @@
 import { resistorStresses } from './divider.js';
+import { isolationWarnings } from './isolation.js';
 import type { ChainWarning, ChannelDefinition } from './types.js';
 
 /** Fewer counts than this per reading earns a `few-counts` warning (1 count > 0.1 %). */
@@ -83,6 +84,7 @@ export function chainWarnings(
   if (isolator && 2 * highest.frequencyHz > isolator.maxSignalRateBd) {
     warnings.push({ code: 'isolator-rate-exceeded', level: 'warning', message: `${(2 * highest.frequencyHz).toPrecision(4)} Bd needed exceeds the isolator's ${isolator.maxSignalRateBd} Bd`, where: 'isolator.maxSignalRateBd' });
   }
+  warnings.push(...isolationWarnings(channel));
   const modulus = 2 ** capture.counterBits;
   const over = grid.filter((g) => g.countsPerReading > modulus - 1);
   if (over.length) {

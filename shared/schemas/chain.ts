@@ -59,9 +59,24 @@ export const converterSchema = z.strictObject({
   inputBiasCurrentA: within('input bias current', BOUNDS.inputBiasCurrent).default(0),
 });
 
+/** A layout distance across the isolation barrier, mm: above a metre it is no longer a board. */
+const DISTANCE_BOUND: InputBound = { min: 0, max: 1000, unit: 'mm', maxText: '1000 mm', positive: true };
+
 export const isolatorSchema = z.strictObject({
   maxSignalRateBd: within('isolator signalling rate', BOUNDS.signalRate),
   pulseWidthDistortionS: within('pulse-width distortion', BOUNDS.pulseWidthDistortion).default(0),
+  /** The isolator's rated working voltage across its barrier (its data sheet), V. */
+  ratedWorkingVoltageV: within('rated working voltage', BOUNDS.ratedVoltage).optional(),
+  /** The isolator's rated insulation test voltage, V. */
+  ratedTestVoltageV: within('rated insulation test voltage', BOUNDS.ratedVoltage).optional(),
+  /** Creepage and clearance the layout provides across the barrier, mm. */
+  creepageMm: within('creepage', DISTANCE_BOUND).optional(),
+  clearanceMm: within('clearance', DISTANCE_BOUND).optional(),
+  /** The standard or rules the required values come from, as the designer names them; Tallyvolt holds no copy of any table. */
+  isolationRule: z.string({ error: 'isolation rule must be text' }).trim().max(120, { error: 'isolation rule must be at most 120 characters' }).optional(),
+  requiredCreepageMm: within('required creepage', DISTANCE_BOUND).optional(),
+  requiredClearanceMm: within('required clearance', DISTANCE_BOUND).optional(),
+  requiredTestVoltageV: within('required insulation test voltage', BOUNDS.ratedVoltage).optional(),
 });
 
 export const periodCaptureSchema = z.strictObject({

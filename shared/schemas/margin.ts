@@ -61,6 +61,11 @@ export const marginInputsSchema = z.strictObject({
   plausibilityMarginPct: finite('plausibility margin').refine((v) => v >= 0 && v < 100, { error: 'plausibility margin must be in [0, 100) %' }).default(10),
   /** Largest acceptable probability of closing early, of timing out, and of a false alarm. */
   allowedProbability: finite('allowed probability').refine((v) => v > 0 && v < 1, { error: 'allowed probability must be in (0, 1)' }).default(0.001),
+  /**
+   * Headroom the isolation barrier must have over each channel's range maximum, %: the review checks the
+   * isolator's ratings against V·(1 + m/100). Optional without a default, so stored inputs keep their hash.
+   */
+  isolationMarginPct: finite('isolation margin').refine((v) => v >= 0 && v <= 200, { error: 'isolation margin must be in [0, 200] %' }).optional(),
 }).superRefine((v, ctx) => {
   if (v.packMaxV < v.packMinV) ctx.addIssue({ code: 'custom', path: ['packMaxV'], message: 'pack maximum must be ≥ pack minimum' });
   if (v.requiredRatioPct === undefined && v.maxStepV === undefined) {

@@ -1,3 +1,4 @@
+import type { RevisionChangeRow } from '../compare/compare-types.js';
 import type { GumAgreement } from '../propagation/gum-validation.js';
 import type { PersonRef } from './design-views.js';
 import type { RevisionState } from './designs.js';
@@ -86,6 +87,15 @@ export interface ReportSignOff {
   override?: { justification: string; failing: { key: string; label: string }[] };
 }
 
+/** The revision under review against an earlier one, every compared value old → new. */
+export interface RevisionComparison {
+  /** 'previous': the revision this one was started from; 'approved': the last approved revision before it. */
+  against: ('previous' | 'approved')[];
+  revision: { id: number; letter: string; state: RevisionState; stateLabel: string };
+  rows: RevisionChangeRow[];
+  changedCount: number;
+}
+
 export interface RevisionReport {
   generatedAt: string;
   title: string;
@@ -100,4 +110,6 @@ export interface RevisionReport {
   marginInputs: MarginInputs;
   signOff: ReportSignOff[];
   caution: { title: string; paragraphs: readonly string[] };
+  /** Against the previous and the last approved revision; empty for a first revision. */
+  comparisons?: RevisionComparison[];
 }

@@ -35,8 +35,11 @@ export async function marginInputsOf(db: DataSource | EntityManager, revisionId:
 }
 
 /** What a margin study depends on: the channels (their reading errors, the link divider) and the margin inputs. */
-export const marginHash = (channels: { key: string; definition: unknown }[], inputs: MarginInputs) =>
-  contentHash({ channels: channels.map((c) => ({ key: c.key, definition: c.definition })), margin: inputs });
+export const marginHash = (channels: { key: string; definition: unknown }[], inputs: MarginInputs) => {
+  // The isolation margin is a review check on the isolator, not a study input: changing it leaves the study current.
+  const { isolationMarginPct: _isolation, ...studied } = inputs;
+  return contentHash({ channels: channels.map((c) => ({ key: c.key, definition: c.definition })), margin: studied });
+};
 
 /**
  * Saves a draft's margin inputs (validated again after defaults, so the stored form is complete), refusing a

@@ -55,7 +55,15 @@ export function chainStages(c: ChannelDefinition): ChainStage[] {
     },
   ];
   if (c.isolator) {
-    stages.push({ stage: 'Isolator', rows: rows(row('signalling rate', c.isolator.maxSignalRateBd, 'Bd'), row('pulse-width distortion', c.isolator.pulseWidthDistortionS, 's')) });
+    const i = c.isolator;
+    stages.push({
+      stage: 'Isolator',
+      rows: rows(row('signalling rate', i.maxSignalRateBd, 'Bd'), row('pulse-width distortion', i.pulseWidthDistortionS, 's'),
+        row('rated working voltage', i.ratedWorkingVoltageV, 'V'), row('rated insulation test voltage', i.ratedTestVoltageV, 'V'),
+        row('creepage provided', i.creepageMm, 'mm'), row('clearance provided', i.clearanceMm, 'mm'), row('standard or rules followed', i.isolationRule),
+        row('required creepage', i.requiredCreepageMm, 'mm'), row('required clearance', i.requiredClearanceMm, 'mm'),
+        row('required insulation test voltage', i.requiredTestVoltageV, 'V')),
+    });
   }
   const cap = c.capture;
   stages.push({

@@ -13,6 +13,7 @@ import type { MarginStudyData } from '../margin/margin-study.js';
 import { HIGH_VOLTAGE_CAUTION } from './caution.js';
 import { chainStages } from './chain-rows.js';
 import { chainWarningsOf } from './chain-warnings.js';
+import { revisionComparisons } from './revision-compare.js';
 import { isoTime, isoTimeOrNull } from '../../common/iso-time.js';
 import type { ReportSignOff, ReportUncertaintyChannel, RevisionReport, RunHeader } from '../../../shared/schemas/report-views.js';
 
@@ -71,8 +72,9 @@ function uncertaintySection(run: AnalysisRun, current: boolean): RunHeader & { c
 /** Everything the printable review report shows, in the order it shows it. */
 export async function buildReport(dataSource: DataSource, revisionId: number, now = new Date()): Promise<RevisionReport> {
   const revision = await getRevision(dataSource, revisionId);
-  const [uncertaintyRun, marginRun, stored] = await Promise.all([
+  const [uncertaintyRun, marginRun, stored, comparisons] = await Promise.all([
     latestDoneRun(dataSource, revisionId, 'uncertainty'), latestDoneRun(dataSource, revisionId, 'margin'), marginInputsOf(dataSource, revisionId),
+    revisionComparisons(dataSource, revision),
   ]);
   const events = await dataSource.getRepository(AuditEvent).find({
     where: { subject: `revision:${revisionId}`, action: In([...REVIEW_ACTIONS]) }, order: { at: 'ASC', id: 'ASC' },
@@ -93,7 +95,7 @@ export async function buildReport(dataSource: DataSource, revisionId: number, no
       basedOnId: revision.basedOnId, createdBy: { id: revision.createdBy.id, displayName: revision.createdBy.displayName },
       createdAt: isoTimeOrNull(revision.createdAt), updatedAt: isoTimeOrNull(revision.updatedAt),
     },
-    channels: revision.channels.map((c) => ({ key: c.key, name: c.definition.name, stages: chainStages(c.definition), warnings: chainWarningsOf(c.definition) })),
+    channels: revision.channels.map((c) => ({ key: c.key, name: c.definition.name, stages: chainStages(c.definition), warnings: chainWarningsOf(c.definition, (stored.inputs as MarginInputs).isolationMarginPct) })),
     uncertainty: uncertaintyRun ? uncertaintySection(uncertaintyRun, uncertaintyCurrent) : null,
     margin: marginRun
       ? { ...runHeader(marginRun, marginCurrent), inputs: (marginRun.inputs as unknown as MarginStudyData).inputs, result: marginRun.result as unknown as MarginStudyResult }
@@ -109,6 +111,7 @@ export async function buildReport(dataSource: DataSource, revisionId: number, no
       ...(e.detail?.override ? { override: e.detail.override as ReportSignOff['override'] } : {}),
     })),
     caution: HIGH_VOLTAGE_CAUTION,
+    comparisons,
   };
 }
 

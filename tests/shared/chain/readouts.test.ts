@@ -15,8 +15,9 @@ describe('nominal readouts', () => {
     expect(readouts.bleedCurrentA).toBeCloseTo(462 / (4e6 + loadedBottom), 15); // Ohm's law
     expect(readouts.stresses[0].powerW).toBeCloseTo((462 / (4e6 + loadedBottom)) ** 2 * 1e6, 12); // P = I²R
     expect(readouts.grid[0].countsPerReading).toBeCloseTo((16 * 48e6) / 1e3, 6); // N·f_clk/f ticks
-    // The fixture's bottom resistor has a power rating but no voltage rating: that check is said not made.
-    expect(readouts.warnings.map((w) => `${w.level} ${w.code}@${w.where}`)).toEqual(['info rating-missing@divider.bottom']);
+    // The fixture's bottom resistor has a power rating but no voltage rating, and its isolator no working-voltage
+    // rating: those checks are said not made.
+    expect(readouts.warnings.map((w) => `${w.level} ${w.code}@${w.where}`)).toEqual(['info rating-missing@divider.bottom', 'info isolation-not-checked@isolator.ratedWorkingVoltageV']);
   });
 
   it('says a stress check could not be made when a rating is missing, with the stress it would have checked', () => {
