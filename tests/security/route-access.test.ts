@@ -14,6 +14,8 @@ function expected(access: unknown, who: (typeof IDENTITIES)[number]): 'allowed' 
   return (access as string[]).includes(who) ? 'allowed' : 403;
 }
 
+// This checks the guard enforces each route's own rule; whether those rules are right is checked against a
+// hand-written table in who-may-do-what.test.ts.
 describe('access matrix generated from the route table', () => {
   let t: TestApp;
   const agents = new Map<string, Agent>();
