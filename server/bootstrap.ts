@@ -1,6 +1,6 @@
 import type { DataSource } from 'typeorm';
 import { createApp, type BuiltApp } from './app.js';
-import type { AppConfig } from './config.js';
+import { databaseTarget, type AppConfig } from './config.js';
 import { createDataSource } from './common/data-source.js';
 import { createMailer, startMailFake, type MailFake, type Mailer } from './common/mail.js';
 import { seedDemoIfEmpty, type DemoSeed } from './seed/demo.js';
@@ -16,9 +16,9 @@ export interface Running extends BuiltApp {
   close(): Promise<void>;
 }
 
-/** Opens the database and applies every pending migration (never `synchronize`). */
-export async function openDatabase(databasePath: string, busyTimeoutMs?: number): Promise<DataSource> {
-  const dataSource = createDataSource(databasePath, busyTimeoutMs);
+/** Opens the database (a SQLite path or a postgres:// URL) and applies every pending migration (never `synchronize`). */
+export async function openDatabase(target: string, busyTimeoutMs?: number): Promise<DataSource> {
+  const dataSource = createDataSource(target, busyTimeoutMs);
   await dataSource.initialize();
   await dataSource.runMigrations({ transaction: 'each' });
   return dataSource;
@@ -26,7 +26,7 @@ export async function openDatabase(databasePath: string, busyTimeoutMs?: number)
 
 /** Everything `npm start` and the API tests need: migrated database, mail path, Express app. */
 export async function bootstrap(config: AppConfig, options: { seed: DemoSeed | false }): Promise<Running> {
-  const dataSource = await openDatabase(config.databasePath, config.busyTimeoutMs);
+  const dataSource = await openDatabase(databaseTarget(config), config.busyTimeoutMs);
   if (options.seed) await seedDemoIfEmpty(dataSource, options.seed);
   const mailFake = config.smtpUrl ? null : await startMailFake(dataSource);
   const mailer = createMailer(config.mailFrom, config.smtpUrl ? { smtpUrl: config.smtpUrl } : { fakePort: mailFake!.port });

@@ -10,6 +10,8 @@ export interface AppConfig {
   port: number;
   host: string;
   databasePath: string;
+  /** DATABASE_URL (postgres://…): PostgreSQL for all data and pg-boss for studies; unset: the SQLite file. */
+  databaseUrl: string | null;
   smtpUrl: string | null;
   mailFrom: string;
   /** Base URL used in links inside e-mails (see publicBaseUrl for the address used without it). */
@@ -31,6 +33,17 @@ function flag(value: string | undefined, fallback: boolean): boolean {
   return !['0', 'false', 'no', 'off'].includes(value.toLowerCase());
 }
 
+function readDatabaseUrl(value: string | undefined): string | null {
+  if (!value) return null;
+  if (!/^postgres(ql)?:\/\//i.test(value)) throw new Error('DATABASE_URL must start with postgres:// or postgresql://');
+  return value;
+}
+
+/** What the data source opens: the PostgreSQL URL when one is set, else the SQLite file. */
+export function databaseTarget(config: Pick<AppConfig, 'databasePath' | 'databaseUrl'>): string {
+  return config.databaseUrl ?? config.databasePath;
+}
+
 /** Reads configuration from the environment; every variable is listed in the README. */
 export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
   const port = Number(env.PORT ?? 3000);
@@ -39,6 +52,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
     port,
     host: env.HOST ?? '127.0.0.1',
     databasePath: env.DATABASE_PATH ?? path.join(projectRoot, 'data', 'tallyvolt.sqlite'),
+    databaseUrl: readDatabaseUrl(env.DATABASE_URL),
     smtpUrl: env.SMTP_URL || null,
     mailFrom: env.MAIL_FROM ?? 'Tallyvolt <tallyvolt@example.test>',
     publicUrl: readPublicUrl(env.PUBLIC_URL),

@@ -13,6 +13,8 @@ const TWELVE_HOURS_MS = 12 * 3600 * 1000;
 /** Without SESSION_SECRET, keep a random one beside the database so sessions survive a restart. */
 function sessionSecret(config: AppConfig): string {
   if (config.sessionSecret) return config.sessionSecret;
+  // Every instance behind the proxy must sign cookies alike, and a file beside one instance is not shared.
+  if (config.databaseUrl) throw new Error('SESSION_SECRET must be set when DATABASE_URL is set');
   if (config.databasePath === ':memory:') return crypto.randomBytes(32).toString('hex');
   const file = path.join(path.dirname(config.databasePath), 'session-secret');
   if (!fs.existsSync(file)) fs.writeFileSync(file, crypto.randomBytes(32).toString('hex'), { mode: 0o600 });
@@ -56,7 +58,7 @@ function readByIdOnly(store: TypeormStore, sessions: Repository<SessionRecord>):
   };
 }
 
-/** Sessions live in SQLite (table `sessions`); the cookie is httpOnly, SameSite=Lax, Secure whenever the request is HTTPS. */
+/** Sessions live in the database (table `sessions`, SQLite or PostgreSQL), so every instance sees them; the cookie is httpOnly, SameSite=Lax, Secure whenever the request is HTTPS. */
 export function createSessionMiddleware(dataSource: DataSource, config: AppConfig) {
   const store = new TypeormStore({
     cleanupLimit: 2,
