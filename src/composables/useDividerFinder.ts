@@ -1,9 +1,9 @@
 import { computed, reactive, ref } from 'vue';
 import { findDividers, type DividerCandidate, type FinderRequest, type FinderResult } from '@shared/finder';
 import { dividerNominal } from '@shared/chain';
-import type { ESeriesName } from '@shared/eseries';
 import type { ChannelDefinition, ResistorDefinition } from '@shared/schemas/chain';
 import type { StockPart } from '@/services/stock';
+import { useSeriesStore } from '@/stores/series';
 import { useStockStore } from '@/stores/stock';
 import { capitalise } from '@/utils/formatQuantity';
 
@@ -13,7 +13,8 @@ export interface FinderForm {
   targetRatio: number | undefined;
   fullScaleV: number | undefined;
   source: 'series' | 'stock';
-  series: ESeriesName;
+  /** name of a stored series (IEC 60063 or the team's own) */
+  series: string;
   minTop: number | undefined;
   maxTop: number | undefined;
   mixed: boolean;
@@ -70,10 +71,11 @@ function initialForm(channel: ChannelDefinition): FinderForm {
 /** The divider finder run in the browser: constraints, ranked candidates, and filling the divider with one. */
 export function useDividerFinder(channel: () => ChannelDefinition) {
   const stockStore = useStockStore();
+  const seriesStore = useSeriesStore();
   const form = reactive<FinderForm>(initialForm(channel()));
   const result = ref<FinderResult | null>(null);
   /** Where the shown result's values came from (the form may change after the search). */
-  const searched = ref<{ source: FinderForm['source']; series: ESeriesName }>({ source: form.source, series: form.series });
+  const searched = ref<{ source: FinderForm['source']; series: string }>({ source: form.source, series: form.series });
   const problem = ref<string | null>(null);
   const searching = ref(false);
   const stock = ref<StockPart[]>([]);
@@ -111,7 +113,11 @@ export function useDividerFinder(channel: () => ChannelDefinition) {
     };
     if (form.target === 'ratio') base.targetRatio = form.targetRatio;
     else base.fullScaleVolts = form.fullScaleV;
-    if (form.source === 'series') base.series = form.series;
+    if (form.source === 'series') {
+      const stored = seriesStore.byName(form.series);
+      if (!stored) throw new Error(`choose a stored series; "${form.series}" is not stored`);
+      base.series = { name: stored.name, values: stored.values };
+    }
     else {
       base.stock = stock.value.map((p) => ({
         ohms: p.ohms, quantity: p.quantity, maxVolts: p.ratedVoltageV ?? undefined, maxWatts: p.ratedPowerW ?? undefined,
@@ -125,6 +131,7 @@ export function useDividerFinder(channel: () => ChannelDefinition) {
     problem.value = null;
     try {
       if (form.source === 'stock') stock.value = await stockStore.loadAll();
+      else await seriesStore.ensureLoaded();
       // Let the "searching" state paint before the (synchronous) search runs.
       await new Promise((resolve) => setTimeout(resolve, 0));
       result.value = findDividers(request());

@@ -95,6 +95,12 @@ export const routes: RouteRecordRaw[] = [
     meta: { title: 'Stock', wide: true },
   },
   {
+    path: '/stock/series',
+    name: 'series',
+    component: () => import('@/pages/SeriesPage.vue'),
+    meta: { title: 'Series', wide: true },
+  },
+  {
     path: '/boards',
     name: 'boards',
     component: () => import('@/pages/BoardsPage.vue'),
