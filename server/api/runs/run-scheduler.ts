@@ -195,7 +195,9 @@ export class RunScheduler {
     for (let pass = 0; pass < passes; pass++) {
       const firstOutput = pass * perPass;
       const outputCount = Math.min(perPass, gridPoints - firstOutput);
-      const values = this.freeValues.pop() ?? new SharedArrayBuffer(Math.max(this.valuesBudgetBytes, trials * 8));
+      const needed = trials * outputCount * 8;
+      const free = this.freeValues.pop();
+      const values = free && free.byteLength >= needed ? free : new SharedArrayBuffer(Math.max(this.valuesBudgetBytes, needed));
       const done = ranges.map(() => 0);
       await Promise.all(ranges.map((range, r) => this.pool.run(
         { kind: 'channel-blocks', channel, gridPoints, seed, totalTrials: trials, ...range, firstOutput, outputCount, values },
