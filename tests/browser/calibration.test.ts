@@ -93,7 +93,7 @@ describe('a tester in the browser', () => {
     const exclude = page.getByRole('dialog', { name: 'Exclude point 5' });
     await exclude.getByLabel('Reason for excluding').fill('Lead slipped off the test point during the reading');
     await exclude.getByRole('button', { name: 'Exclude point' }).click();
-    await expect.poll(() => page.locator('.p-dialog-mask').count()).toBe(0);
+    await expect.poll(() => exclude.isVisible()).toBe(false);
     await expect.poll(() => points.locator('tbody tr').nth(4).innerText()).toMatch(/Excluded\s+Lead slipped/);
     expect(await points.locator('tbody').innerText()).not.toContain('Suspect');
     await expect.poll(() => page.getByText('7 (5 degrees of freedom)').isVisible()).toBe(true);

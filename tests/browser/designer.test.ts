@@ -21,7 +21,7 @@ describe('a designer in the browser', () => {
     await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Designs' }).click();
     await page.waitForURL(/\/designs$/);
     await expect.poll(() => page.getByRole('link', { name: 'PM-2 pack monitor' }).isVisible()).toBe(true);
-    await page.locator('.p-datatable-mask').waitFor({ state: 'detached' });
+    await page.locator('[aria-label="Designs"][aria-busy="false"]').waitFor();
     await rig.screenshot('designer-designs');
 
     await page.getByRole('button', { name: 'New design' }).click();
@@ -86,7 +86,7 @@ describe('a designer in the browser', () => {
     await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Stock' }).click();
     await page.waitForURL(/\/stock$/);
     await expect.poll(() => page.getByRole('cell', { name: '4.99 MΩ', exact: true }).isVisible()).toBe(true);
-    await page.locator('.p-datatable-mask').waitFor({ state: 'detached' });
+    await page.locator('[aria-label="Stock"][aria-busy="false"]').waitFor();
     await rig.screenshot('designer-stock');
 
     const csv = path.join(fs.mkdtempSync(path.join(os.tmpdir(), 'tallyvolt-csv-')), 'shelf.csv');

@@ -13,6 +13,19 @@ async function signIn(rig: BrowserRig, email: string, password: string) {
   await page.waitForURL((url) => url.pathname === '/');
 }
 
+/**
+ * Opens a revision and waits until its review bar has read the decision behind the state it shows (the bar
+ * clears aria-busy then). The bar renders before that answer arrives, so reading it sooner can see the state
+ * without the lead's words; on a cold, busy page that took longer than a poll's default second.
+ */
+async function openRevision(rig: BrowserRig, revisionId: number) {
+  const { page } = rig;
+  await page.goto(`${rig.baseUrl}/revisions/${revisionId}`);
+  const bar = page.getByRole('region', { name: 'Review' });
+  await bar.and(page.locator('[aria-busy="false"]')).waitFor();
+  return bar;
+}
+
 async function signOut(page: Page) {
   await page.getByRole('button', { name: 'Sign out' }).click();
   await page.waitForURL(/\/sign-in/);
@@ -35,9 +48,8 @@ describe('the review of a revision in the browser', () => {
   it('takes a revision from changes requested through a fresh margin study to approval', async () => {
     const { page } = rig;
     await signIn(rig, 'designer@example.test', 'tallyvolt-designer');
-    await page.goto(`${rig.baseUrl}/revisions/${revisionId}`);
-    const bar = page.getByRole('region', { name: 'Review' });
-    await expect.poll(() => bar.innerText()).toContain('Widen the timeout to 6 s');
+    const bar = await openRevision(rig, revisionId);
+    expect(await bar.innerText()).toContain('Widen the timeout to 6 s');
     await bar.getByRole('button', { name: 'Reopen as draft' }).click();
     await expect.poll(() => bar.getByRole('button', { name: 'Submit for review' }).isVisible()).toBe(true);
 
@@ -79,7 +91,7 @@ describe('the review of a revision in the browser', () => {
     await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Reviews' }).click();
     await page.waitForURL(/\/reviews$/);
     await expect.poll(() => page.getByRole('link', { name: 'PM-2 pack monitor, revision B' }).isVisible()).toBe(true);
-    await page.locator('.p-datatable-mask').waitFor({ state: 'detached' });
+    await page.locator('[aria-label="Revisions for review"][aria-busy="false"]').waitFor();
     await rig.screenshot('review-list');
     await page.getByRole('link', { name: 'PM-2 pack monitor, revision B' }).click();
     await page.waitForURL(/\/review$/);
@@ -115,9 +127,9 @@ describe('the review of a revision in the browser', () => {
     await signOut(page);
 
     await signIn(rig, 'designer@example.test', 'tallyvolt-designer');
-    await page.goto(`${rig.baseUrl}/revisions/${revisionId}`);
-    await expect.poll(() => page.locator('h1').innerText()).toContain('Approved');
-    await expect.poll(() => bar.innerText()).toContain('Accepted for the bench build');
+    await openRevision(rig, revisionId);
+    expect(await page.locator('h1').innerText()).toContain('Approved');
+    expect(await bar.innerText()).toContain('Accepted for the bench build');
     expect(await bar.innerText()).toMatch(/Approved with an override[\s\S]*caught by the bench check before first power-up/);
     await rig.screenshot('review-designer-approved');
 
