@@ -1,4 +1,5 @@
 import type { FixedPointForm } from '../../../shared/fit/fixed-point.js';
+import type { CountReadingForm } from '../../../shared/fit/count-reading.js';
 
 /** A stated bound printed with two significant digits, rounded up so it stays a bound. */
 export const boundText = (v: number): string => {
@@ -62,6 +63,46 @@ static inline int32_t ${l}_volts_fixed(uint32_t f_fx)
         acc = ${l}_div_round(acc * u, (int64_t)1 << ${p}_U_FRAC_BITS) + term;
     }
     return (int32_t)acc;
+}
+`;
+}
+
+/**
+ * The count reading: whole millivolts from the raw capture in integers only, through the fixed-point reading
+ * above. countReadingMv (shared/fit/count-reading.ts) is this function step for step; the integer read-back
+ * test compiles both and compares them bit for bit.
+ */
+export function cCountReadingCode(p: string, form: CountReadingForm): string {
+  const l = p.toLowerCase();
+  const period = form.method === 'period';
+  const constants = period
+    ? `/* K = round(N x f_clk x 2^FREQ_FRAC_BITS / P); f = N x f_clk / (P x counts). Below 2^63, so K + counts / 2 stays within uint64_t. */
+#define ${p}_COUNTS_K UINT64_C(${form.constant})`
+    : `/* M = round(2^(FREQ_FRAC_BITS + S) / T_gate); f = counts / T_gate. Counts are clamped to CLAMP first, so counts x M + 2^(S-1) < 2^63. */
+#define ${p}_COUNTS_M UINT64_C(${form.constant})
+#define ${p}_COUNTS_S ${form.shift}
+#define ${p}_COUNTS_CLAMP UINT64_C(${form.countsClamp})`;
+  const toInput = period
+    ? `    f_fx = counts == 0u ? (uint64_t)${p}_HIGH_FX : (${p}_COUNTS_K + counts / 2u) / counts;`
+    : `    const uint64_t c = counts > ${p}_COUNTS_CLAMP ? ${p}_COUNTS_CLAMP : counts;
+    f_fx = (c * ${p}_COUNTS_M${form.shift > 0 ? ` + ((uint64_t)1 << (${p}_COUNTS_S - 1))` : ''}) >> ${p}_COUNTS_S;`;
+  return `${constants}
+#define ${p}_COUNTS_MIN UINT64_C(${form.countsRange.min})
+#define ${p}_COUNTS_MAX UINT64_C(${form.countsRange.max})
+
+/*
+ * Millivolts from the raw ${period ? 'period capture (timer ticks over the averaged periods)' : 'gated count (input edges counted in the gate)'}, integers only:
+ * the counts become the fixed-point frequency input (clamped to HIGH_FX), ${l}_volts_fixed reads it, and the
+ * result is rounded to whole millivolts (halves away from zero).
+ */
+static inline int32_t ${l}_millivolts_from_counts(uint64_t counts)
+{
+    uint64_t f_fx;
+    int64_t v;
+${toInput}
+    if (f_fx > (uint64_t)${p}_HIGH_FX) f_fx = (uint64_t)${p}_HIGH_FX;
+    v = ${l}_volts_fixed((uint32_t)f_fx);
+    return (int32_t)${l}_div_round(v * 1000, (int64_t)1 << ${p}_VOLTS_FRAC_BITS);
 }
 `;
 }

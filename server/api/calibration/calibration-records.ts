@@ -1,6 +1,9 @@
 import type { DataSource, EntityManager } from 'typeorm';
 import type { FixedPointForm } from '../../../shared/fit/fixed-point.js';
 import { fixedPointForm } from '../../../shared/fit/fixed-point.js';
+import { countReadingForm, type CountReadingForm } from '../../../shared/fit/count-reading.js';
+import type { CaptureDefinition } from '../../../shared/schemas/chain.js';
+import { Channel } from '../../entities/Channel.js';
 import type { ReferenceSpec } from '../../../shared/schemas/calibration.js';
 import type { BoardComparison, FitView } from '../../../shared/schemas/calibration-views.js';
 import { ConflictError, HttpError, NotFoundError } from '../../common/errors.js';
@@ -23,12 +26,17 @@ export interface RecordPayload {
   revision: { id: number; letter: string };
   channel: { key: string; name: string };
   reference: ReferenceSpec;
+  /** The reference instrument's traceability as recorded; absent from records frozen before it was kept. */
+  referenceTraceability?: { instrumentId: string | null; certificateNumber: string | null; dueOn: string | null };
   points: { appliedV: number; frequencyHz: number; counts: number | null; uncertaintyHz: number | null; excluded: boolean; excludedReason: string }[];
   fit: FitView;
   /** volts = Σ c_k·f^k as fitted, and its integer-only form; fixedPoint is null when the fit has none, with the reason. */
-  /** The reference instrument's traceability as recorded; absent from records frozen before it was kept. */
-  referenceTraceability?: { instrumentId: string | null; certificateNumber: string | null; dueOn: string | null };
-  reading: { coefficients: number[]; fixedPoint: FixedPointForm | null; notExportable: string | null };
+  reading: {
+    coefficients: number[]; fixedPoint: FixedPointForm | null; notExportable: string | null;
+    /** Whole millivolts from raw counts (integers only), frozen with the capture settings it was made from; absent in records frozen before it existed. */
+    countReading?: CountReadingForm | null;
+    countNotExportable?: string | null;
+  };
   acceptance: { rule: string; decision: string; within: boolean } | null;
 }
 
@@ -49,11 +57,18 @@ export interface SessionForRecord {
   at: Date;
 }
 
-function readingOf(fit: FitView): RecordPayload['reading'] {
+function readingOf(fit: FitView, capture: CaptureDefinition | undefined): RecordPayload['reading'] {
+  let fixedPoint: FixedPointForm;
   try {
-    return { coefficients: fit.inverse.coefficients, fixedPoint: fixedPointForm(fit.inverse.coefficients, fit.rangeHz), notExportable: null };
+    fixedPoint = fixedPointForm(fit.inverse.coefficients, fit.rangeHz);
   } catch (e) {
-    return { coefficients: fit.inverse.coefficients, fixedPoint: null, notExportable: (e as Error).message };
+    return { coefficients: fit.inverse.coefficients, fixedPoint: null, notExportable: (e as Error).message, countReading: null, countNotExportable: (e as Error).message };
+  }
+  try {
+    if (!capture) throw new Error('the channel\'s capture settings are not known');
+    return { coefficients: fit.inverse.coefficients, fixedPoint, notExportable: null, countReading: countReadingForm(fit.inverse.coefficients, fixedPoint, fit.rangeHz, capture), countNotExportable: null };
+  } catch (e) {
+    return { coefficients: fit.inverse.coefficients, fixedPoint, notExportable: null, countReading: null, countNotExportable: (e as Error).message };
   }
 }
 
@@ -78,9 +93,10 @@ export async function freezeRecord(m: EntityManager, input: SessionForRecord): P
     revision: { id: s.board.revision.id, letter: s.board.revision.letter },
     channel: { key: s.channelKey, name: input.channelName },
     reference: s.reference,
+    referenceTraceability: { instrumentId: s.referenceInstrumentId ?? null, certificateNumber: s.referenceCertificate ?? null, dueOn: s.referenceDueOn ?? null },
     points: s.points.map((p) => ({ appliedV: p.appliedV, frequencyHz: p.frequencyHz, counts: p.counts, uncertaintyHz: p.uncertaintyHz, excluded: p.excluded, excludedReason: p.excludedReason })),
     fit,
-    reading: readingOf(fit),
+    reading: readingOf(fit, (await m.getRepository(Channel).findOneBy({ revisionId: s.board.revision.id, key: s.channelKey }))?.definition.capture),
     acceptance: comparison ? { rule: comparison.acceptance.rule, decision: comparison.acceptance.decision, within: comparison.within } : null,
   };
   const text = canonicalJson(payload);
@@ -93,7 +109,6 @@ export async function freezeRecord(m: EntityManager, input: SessionForRecord): P
 /** The session's records without their payloads, oldest first. */
 export function listRecords(db: DataSource | EntityManager, sessionId: number) {
   return db.getRepository(CalibrationRecord).find({
-    referenceTraceability: { instrumentId: s.referenceInstrumentId ?? null, certificateNumber: s.referenceCertificate ?? null, dueOn: s.referenceDueOn ?? null },
     where: { sessionId }, order: { sequence: 'ASC' }, relations: { createdBy: true },
     select: { id: true, sequence: true, sha256: true, createdAt: true, createdBy: { id: true, displayName: true } },
   });
@@ -116,6 +131,12 @@ export async function readRecord(db: DataSource | EntityManager, sessionId: numb
     throw new HttpError(500, `record ${row.sequence} of calibration session ${sessionId} does not match its SHA-256; it was changed after it was stored`);
   }
   return { sequence: row.sequence, sessionId, sha256: row.sha256, createdAt: row.createdAt, payload: JSON.parse(row.payload) as RecordPayload };
+}
+
+/** The record's frozen count reading, or undefined for a record frozen before count readings were kept. */
+export function recordCountReading(record: FrozenRecord): { form: CountReadingForm | null; reason: string | null; frozen: true } | undefined {
+  const { countReading, countNotExportable } = record.payload.reading;
+  return countReading === undefined ? undefined : { form: countReading, reason: countNotExportable ?? null, frozen: true };
 }
 
 /** The record's fixed-point form, or a 409 saying why its fit has none. */

@@ -3,7 +3,7 @@ import type { FitView, SessionAnalysis } from '../../../shared/schemas/calibrati
 import { ConflictError } from '../../common/errors.js';
 import type { CalibrationSession } from '../../entities/CalibrationSession.js';
 import { referenceTraceability } from '../../../shared/schemas/reference-traceability.js';
-import { freezeRecord, readRecord, recordFixedPoint, type FrozenRecord } from './calibration-records.js';
+import { freezeRecord, readRecord, recordCountReading, recordFixedPoint, type FrozenRecord } from './calibration-records.js';
 import type { ExportContext, ExportRecord } from './firmware-export.js';
 import { analyseSession, getSession, sessionChannel } from './sessions.service.js';
 
@@ -24,7 +24,7 @@ function fromRecord(record: FrozenRecord): ExportSource {
       state: 'complete', testerName: p.session.tester.displayName, traceability: referenceTraceability(p.session.performedOn, p.referenceTraceability),
     },
     fit: p.fit,
-    record: { sequence: record.sequence, sha256: record.sha256, fixed: recordFixedPoint(record) },
+    record: { sequence: record.sequence, sha256: record.sha256, fixed: recordFixedPoint(record), count: recordCountReading(record) },
   };
 }
 
@@ -61,9 +61,12 @@ export async function currentRecord(dataSource: DataSource, session: Calibration
  */
 export async function exportSource(dataSource: DataSource, id: number, sequence?: number): Promise<ExportSource> {
   const session = await getSession(dataSource, id);
-  if (sequence !== undefined) return fromRecord((await readRecord(dataSource, id, sequence))!);
+  // a record frozen before count readings were kept gets its count constants from the revision's capture, and says so
+  const withCapture = async (source: ExportSource): Promise<ExportSource> => (source.record?.count
+    ? source : { ...source, ctx: { ...source.ctx, capture: (await sessionChannel(dataSource, session)).capture } });
+  if (sequence !== undefined) return withCapture(fromRecord((await readRecord(dataSource, id, sequence))!));
   const record = await currentRecord(dataSource, session);
-  if (record) return fromRecord(record);
+  if (record) return withCapture(fromRecord(record));
   const analysis = await analyseSession(dataSource, session);
   if (!analysis.fit) throw new ConflictError(`nothing to export yet: ${analysis.reason}`);
   const channel = await sessionChannel(dataSource, session);
@@ -72,11 +75,11 @@ export async function exportSource(dataSource: DataSource, id: number, sequence?
       serialNumber: session.board.serialNumber, designName: session.board.revision.design.name, revisionLetter: session.board.revision.letter,
       channelKey: session.channelKey, channelName: channel.name, sessionId: session.id, performedOn: session.performedOn,
       ambientC: session.ambientC, state: session.state, testerName: session.tester.displayName,
+      traceability: referenceTraceability(session.performedOn,
+        { instrumentId: session.referenceInstrumentId, certificateNumber: session.referenceCertificate, dueOn: session.referenceDueOn }),
     },
     fit: analysis.fit,
   };
-      traceability: referenceTraceability(session.performedOn,
-        { instrumentId: session.referenceInstrumentId, certificateNumber: session.referenceCertificate, dueOn: session.referenceDueOn }),
 }
 
 /** A completed session shows the fit of its latest record, the one its exports carry; a draft shows the fit computed now. */
