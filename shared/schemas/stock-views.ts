@@ -11,10 +11,24 @@ export interface StockPreview {
   invalidCount: number;
   /** How many more parts the stock takes (STOCK_PART_LIMIT less those stored). */
   room: number;
+  /** Rows that match a line already on the shelf (same value, tolerance and package). */
+  duplicates: StockDuplicate[];
 }
+
+/** A file row that is already on the shelf: its row number, the shelf line and that line's quantity now. */
+export interface StockDuplicate {
+  row: number;
+  partId: number;
+  quantityOnShelf: number;
+}
+
+/** What to do with rows already on the shelf: a separate new line each, or their quantity added to that line. */
+export type StockDuplicateChoice = 'new-line' | 'add-quantity';
 
 export interface StockImportOutcome {
   imported: number;
+  /** Shelf lines whose quantity grew because the file repeated them (when that was chosen). */
+  addedTo: number;
   skipped: number;
   problems: RowProblem[];
 }

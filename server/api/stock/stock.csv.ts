@@ -19,7 +19,7 @@ const NUMERIC: Record<string, keyof StockPartBody> = {
 const FIELD_TO_COLUMN = Object.fromEntries([...Object.entries(NUMERIC).map(([c, f]) => [f, c]), ['ohms', 'value'], ['package', 'package'], ['note', 'note']]);
 
 /** Checks a stock CSV row by row; every problem names its row (file line) and column. */
-export function previewStockCsv(table: CsvTable): Omit<StockPreview, 'room'> {
+export function previewStockCsv(table: CsvTable): Omit<StockPreview, 'room' | 'duplicates'> {
   const missing = STOCK_CSV_REQUIRED.filter((c) => !table.headers.includes(c));
   if (missing.length) throw new BadRequestError(`missing column${missing.length > 1 ? 's' : ''}: ${missing.join(', ')}`, { file: `missing ${missing.join(', ')}` });
   const unknown = table.headers.filter((h) => !(STOCK_CSV_COLUMNS as readonly string[]).includes(h));

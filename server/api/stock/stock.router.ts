@@ -9,7 +9,7 @@ import { defineRoute, type RouteSpec } from '../../common/routes.js';
 import { ROLE_GROUPS } from '../../../shared/schemas/roles.js';
 import { csvUpload } from '../../common/upload.js';
 import { previewStockCsv, stockCsvRow } from './stock.csv.js';
-import { createStockPart, deleteStockPart, importStock, listStock, stockInPages, stockRoom, updateStockPart } from './stock.service.js';
+import { createStockPart, deleteStockPart, importStock, listStock, stockInPages, stockPreviewShelf, updateStockPart } from './stock.service.js';
 import type { StockImportOutcome, StockPreview } from '../../../shared/schemas/stock-views.js';
 
 async function* rowsOf(pages: AsyncIterable<StockPart[]>): AsyncGenerator<CsvValue[][]> {
@@ -17,6 +17,7 @@ async function* rowsOf(pages: AsyncIterable<StockPart[]>): AsyncGenerator<CsvVal
 }
 const importQuery = z.strictObject({
   mode: z.enum(['preview', 'all', 'valid-only'], { error: 'mode must be preview, all or valid-only' }).default('preview'),
+  duplicates: z.enum(['new-line', 'add-quantity'], { error: 'duplicates must be new-line or add-quantity' }).default('new-line'),
 });
 
 export function stockRoutes({ dataSource }: AppDeps): RouteSpec[] {
@@ -56,12 +57,12 @@ export function stockRoutes({ dataSource }: AppDeps): RouteSpec[] {
       handler: async ({ query, user, req, res }) => {
         const checked = previewStockCsv(readCsv(req.file!.buffer));
         if (query.mode === 'preview') {
-          const preview: StockPreview = { ...checked, room: await stockRoom(dataSource) };
+          const preview: StockPreview = { ...checked, ...(await stockPreviewShelf(dataSource, checked.rows)) };
           res.json(preview);
           return;
         }
-        const imported = await importStock(dataSource, user, checked, query.mode === 'valid-only');
-        const outcome: StockImportOutcome = { imported, skipped: checked.invalidCount, problems: checked.problems };
+        const { imported, addedTo } = await importStock(dataSource, user, checked, query.mode === 'valid-only', query.duplicates);
+        const outcome: StockImportOutcome = { imported, addedTo, skipped: checked.invalidCount, problems: checked.problems };
         res.status(201).json(outcome);
       },
     }),

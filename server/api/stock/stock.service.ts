@@ -7,7 +7,8 @@ import { importableRows } from '../../common/csv.js';
 import { BadRequestError, ConflictError, NotFoundError } from '../../common/errors.js';
 import { StockPart } from '../../entities/StockPart.js';
 import type { User } from '../../entities/User.js';
-import type { StockPreview } from '../../../shared/schemas/stock-views.js';
+import type { StockDuplicateChoice, StockPreview } from '../../../shared/schemas/stock-views.js';
+import { addToShelfLines, findStockDuplicates } from './stock-duplicates.js';
 
 export interface StockListOptions {
   page: number;
@@ -112,13 +113,27 @@ async function faultPause(): Promise<void> {
   await new Promise((resolve) => setTimeout(resolve, ms));
 }
 
+/** The preview's view of the shelf: room left and the rows that repeat a line already there. */
+export async function stockPreviewShelf(dataSource: DataSource, rows: StockPreview['rows']): Promise<Pick<StockPreview, 'room' | 'duplicates'>> {
+  return dataSource.transaction(async (m) => ({ room: await stockRoom(m), duplicates: await findStockDuplicates(m, rows) }));
+}
+
 /**
  * Stores the previewed rows in one transaction: all of them, or only the valid ones when the person chose so.
- * With `onlyValid` false, any bad row refuses the whole file and nothing is stored.
+ * With `onlyValid` false, any bad row refuses the whole file and nothing is stored. With 'add-quantity', a row
+ * already on the shelf adds its quantity to that line instead of becoming a second line; the match is made
+ * again inside the transaction, so it reflects the shelf as it is when the import runs.
  */
-export async function importStock(dataSource: DataSource, actor: User, preview: Pick<StockPreview, 'rows' | 'invalidCount'>, onlyValid: boolean): Promise<number> {
-  const parts = importableRows(preview.rows.map((r) => r.part), onlyValid);
-  await dataSource.transaction(async (m) => {
+export async function importStock(
+  dataSource: DataSource, actor: User, preview: Pick<StockPreview, 'rows' | 'invalidCount'>, onlyValid: boolean,
+  duplicateChoice: StockDuplicateChoice = 'new-line',
+): Promise<{ imported: number; addedTo: number }> {
+  importableRows(preview.rows.map((r) => r.part), onlyValid);
+  return dataSource.transaction(async (m) => {
+    const duplicates = duplicateChoice === 'add-quantity' ? await findStockDuplicates(m, preview.rows) : [];
+    const lineOf = new Map(duplicates.map((d) => [d.row, d.partId]));
+    const parts = preview.rows.filter((r) => r.part && !lineOf.has(r.row)).map((r) => r.part!);
+    const additions = preview.rows.filter((r) => r.part && lineOf.has(r.row)).map((r) => ({ partId: lineOf.get(r.row)!, quantity: r.part!.quantity ?? 0 }));
     await assertRoom(m, parts.length, 'file');
     const repo = m.getRepository(StockPart);
     // Chunked inserts keep each statement under SQLite's variable limit.
@@ -126,7 +141,8 @@ export async function importStock(dataSource: DataSource, actor: User, preview: 
       await repo.insert(parts.slice(i, i + 200).map((p) => repo.create(p)));
       if (i === 0) await faultPause();
     }
-    await recordAudit(m, actor.id, 'stock.import', 'stock', { rows: parts.length, skipped: preview.invalidCount });
+    const addedTo = await addToShelfLines(m, additions);
+    await recordAudit(m, actor.id, 'stock.import', 'stock', { rows: parts.length, addedTo, skipped: preview.invalidCount });
+    return { imported: parts.length, addedTo };
   });
-  return parts.length;
 }
