@@ -5,6 +5,8 @@ import { defineRoute, type RouteSpec } from '../../common/routes.js';
 import { ROLE_GROUPS } from '../../../shared/schemas/roles.js';
 import { toPublicUser } from '../users/users.mapper.js';
 import { acceptInvite, createInvite, findUsableInvite } from './invites.service.js';
+import { listPendingInvites, resendInvite, revokeInvite } from './invites-pending.service.js';
+import { idParamSchema } from '../../../shared/schemas/common.js';
 import type { RequestHandler } from 'express';
 import { publicBaseUrl } from '../../common/public-url.js';
 import type { Invite, InviteDetails } from '../../../shared/schemas/admin-views.js';
@@ -21,6 +23,20 @@ export function invitesRoutes({ dataSource, mailer, config }: AppDeps, limit: Re
         const view: Invite = { id: invite.id, email: invite.email, role: invite.role, expiresAt: invite.expiresAt.toISOString() };
         res.status(201).json({ invite: view });
       },
+    }),
+    defineRoute({
+      method: 'get', path: '', access: ROLE_GROUPS.administrators,
+      handler: async ({ res }) => { res.json({ items: await listPendingInvites(dataSource) }); },
+    }),
+    defineRoute({
+      method: 'post', path: '/:id/resend', access: ROLE_GROUPS.administrators, params: idParamSchema,
+      handler: async ({ params, user, req, res }) => {
+        res.json({ invite: await resendInvite(dataSource, mailer, user, params.id, publicBaseUrl(config, req)) });
+      },
+    }),
+    defineRoute({
+      method: 'delete', path: '/:id', access: ROLE_GROUPS.administrators, params: idParamSchema,
+      handler: async ({ params, user, res }) => { await revokeInvite(dataSource, user, params.id); res.status(204).end(); },
     }),
     defineRoute({
       method: 'post', path: '/accept', access: 'public', body: inviteAcceptSchema, before: [limit],
