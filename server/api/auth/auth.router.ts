@@ -53,6 +53,14 @@ export function authRoutes(passport: PassportStatic, limits: SignInLimits): Rout
           });
         }),
     }),
+    // The client's start-up question "is anyone signed in?": nobody is a normal answer, not an error,
+    // so a signed-out page load logs no failed request. /me keeps its 401 for callers that need a user.
+    defineRoute({
+      method: 'get', path: '/session', access: 'public',
+      handler: ({ user, res }) => {
+        res.json({ user: user ? toPublicUser(user) : null });
+      },
+    }),
     defineRoute({
       method: 'get', path: '/me', access: 'signed-in',
       handler: ({ user, res }) => {
