@@ -1,7 +1,7 @@
 import { http } from './http';
 import type { RevisionReport } from '@shared/schemas/report-views';
 
-export type { ReportBudgetRow, ReportChainRow, ReportSignOff, ReportUncertaintyChannel, RevisionReport } from '@shared/schemas/report-views';
+export type { ReportBudgetRow, ReportChainRow, ReportSignOff, ReportUncertaintyChannel, RevisionComparison, RevisionReport } from '@shared/schemas/report-views';
 
 const path = (id: number) => `/api/revisions/${encodeURIComponent(id)}`;
 
