@@ -3,6 +3,7 @@ import { formatEng } from '../../../shared/units/index.js';
 import { GUM_AGREEMENT_WORDS } from '../../../shared/propagation/gum-validation.js';
 import { ratioChart, ratioHistogram } from './pdf-charts.js';
 import { COLOURS, PdfWriter } from './pdf-layout.js';
+import { comparisonSection } from './pdf-comparison.js';
 import type { ReviewReport } from './reports.service.js';
 
 const when = (iso: string | null) => (iso ? `${iso.slice(0, 16).replace('T', ' ')} UTC` : '-');
@@ -156,6 +157,7 @@ export function renderReportPdf(report: ReviewReport): Promise<Buffer> {
   if (report.revision.note) pdf.paragraph(`Revision note: ${report.revision.note}`, { size: 9 });
   pdf.doc.moveDown(0.5);
   caution(pdf, report);
+  comparisonSection(pdf, report);
   marginSection(pdf, report);
   uncertaintySection(pdf, report);
   chainSection(pdf, report);
