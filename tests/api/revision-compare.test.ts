@@ -1,10 +1,30 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import * as pdfjs from 'pdfjs-dist/legacy/build/pdf.mjs';
 import { createTestApp, type TestApp } from '../helpers/test-app.js';
 import { putChannels, putMarginInputs } from '../helpers/saves.js';
 
 type Agent = Awaited<ReturnType<TestApp['signIn']>>;
 interface Row { section: string; label: string; before: string | null; after: string | null; changed: boolean }
 interface Comparison { against: string[]; revision: { letter: string }; rows: Row[]; changedCount: number }
+
+/** The text of every page of a PDF, joined, with runs of white space made one space. */
+async function pdfText(data: Buffer): Promise<string> {
+  const pdf = await pdfjs.getDocument({ data: new Uint8Array(data), verbosity: 0 }).promise;
+  const pages: string[] = [];
+  for (let i = 1; i <= pdf.numPages; i++) {
+    const content = await (await pdf.getPage(i)).getTextContent();
+    pages.push(content.items.map((item) => ('str' in item ? item.str : '')).join(' '));
+  }
+  await pdf.destroy();
+  return pages.join('\n').replace(/\s+/g, ' ');
+}
+
+// eslint-disable-next-line @typescript-eslint/no-explicit-any -- superagent's parser hands over its own response stream
+const binary = (res: any, callback: (err: Error | null, body: Buffer) => void) => {
+  const chunks: Buffer[] = [];
+  res.on('data', (c: Buffer) => chunks.push(c));
+  res.on('end', () => callback(null, Buffer.concat(chunks)));
+};
 
 describe('revision comparison in the review report', () => {
   let t: TestApp;
@@ -59,6 +79,15 @@ describe('revision comparison in the review report', () => {
     const warnings = report.channels[0].warnings as { message: string; where: string }[];
     expect(warnings.find((w) => w.where === 'isolator.ratedWorkingVoltageV')?.message).toContain('625 V');
     expect(warnings.find((w) => w.where === 'isolator.creepageMm')?.message).toContain('(team layout rule 7)');
+  });
+
+  it('prints the changed values in the report PDF', async () => {
+    const res = await lead.get(`/api/revisions/${ids.C}/report.pdf`).buffer(true).parse(binary);
+    expect(res.status).toBe(200);
+    const text = await pdfText(res.body as Buffer);
+    expect(text).toContain('Revision comparison');
+    expect(text).toContain('Against revision B (in review)');
+    expect(text).toMatch(/Bottom resistor resistance .*4\.75 kΩ changed/);
   });
 
   it('refuses an isolation margin out of range, naming the field, and leaves the inputs as they were', async () => {
