@@ -1,5 +1,5 @@
 import type { MarginCriterion, MarginStudyResult } from '../../../shared/schemas/margin.js';
-import { formatEng } from '../../../shared/units/index.js';
+import { budgetRowTexts, formatEng } from '../../../shared/units/index.js';
 import { GUM_AGREEMENT_WORDS } from '../../../shared/propagation/gum-validation.js';
 import { ratioChart, ratioHistogram } from './pdf-charts.js';
 import { COLOURS, PdfWriter } from './pdf-layout.js';
@@ -113,9 +113,10 @@ function uncertaintySection(pdf: PdfWriter, report: ReviewReport): void {
     );
     pdf.paragraph(`Uncertainty budget at ${formatEng(c.budget.voltageV, 'V')}: u = ${formatEng(c.budget.combinedStandardUncertaintyV, 'V')}, U = ±${formatEng(c.budget.expandedUncertaintyV, 'V')} (k = ${c.budget.coverageFactor.toFixed(2)}); GUM against Monte Carlo (JCGM 101 §8): ${GUM_AGREEMENT_WORDS[c.gumAgreement ?? (c.gumAdequate ? 'agrees' : 'disagrees')]}.`, { size: 8.5 });
     pdf.table(
-      [{ header: 'Input', width: 160 }, { header: 'Distribution', width: 70 }, { header: 'u(x)', width: 80, align: 'right' }, { header: 'c', width: 70, align: 'right' }, { header: 'u(y)', width: 65, align: 'right' }, { header: 'Share', width: pdf.width - 445, align: 'right' }],
-      c.budget.rows.map((b) => [b.order === 2 ? `${b.label} (second order)` : `${b.label} (${b.where})`, b.distribution, `${b.standardUncertainty.toPrecision(3)} ${b.unit}`, b.sensitivity.toPrecision(3),
-        formatEng(b.contributionV, 'V'), `${b.sharePct.toFixed(1)} %`]),
+      [{ header: 'Term', width: 132 }, { header: 'Distribution', width: 60 }, { header: 'Bound', width: 60, align: 'right' }, { header: 'u(x)', width: 58, align: 'right' },
+        { header: 'Sensitivity c', width: 80, align: 'right' }, { header: 'u(y)', width: 50, align: 'right' }, { header: 'Share', width: pdf.width - 440, align: 'right' }],
+      // the same cells as the printable report page, from the same shared helper
+      c.budget.rows.map((b) => { const t = budgetRowTexts(b); return [t.term, t.distribution, t.bound, t.standardUncertainty, t.sensitivity, t.contribution, t.share]; }),
     );
     if (c.budget.rows.some((b) => b.order === 2)) {
       pdf.paragraph('Second-order rows are cross terms of two inputs (JCGM 100 5.1.2, note on nonlinearity), such as a temperature swing acting through a TCR; their u(x) is the product of the two inputs\' and they count in u.', { size: 8, colour: COLOURS.muted });
