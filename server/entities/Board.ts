@@ -1,4 +1,5 @@
 import { Column, CreateDateColumn, Entity, Index, JoinColumn, ManyToOne, PrimaryGeneratedColumn } from 'typeorm';
+import type { RevisionState } from '../../shared/schemas/designs.js';
 import { Revision } from './Revision.js';
 import { User } from './User.js';
 
@@ -26,6 +27,10 @@ export class Board {
 
   @Column('text', { default: '' })
   note: string;
+
+  /** The revision's state when the board was recorded (null for boards recorded before it was kept). */
+  @Column('varchar', { length: 20, nullable: true })
+  revisionStateAtBuild: RevisionState | null;
 
   @ManyToOne(() => User, { nullable: false, onDelete: 'RESTRICT' })
   @JoinColumn({ name: 'createdById', foreignKeyConstraintName: 'FK_boards_created_by' })

@@ -17,7 +17,7 @@ const SCATTER_HZ = [0.6, -0.4, 0.2, -0.7, 0.5, 0.1, -0.3, 0.4, -0.2, 0.3, -0.5];
 /** Board "PM-2-001" of revision A with one completed calibration per channel. */
 export async function seedDemoCalibration(dataSource: DataSource, tester: User): Promise<void> {
   const revision = await dataSource.getRepository(Revision).findOneOrFail({ where: { letter: 'A', design: { name: 'PM-2 pack monitor' } } });
-  const board = await createBoard(dataSource, tester, { serialNumber: 'PM-2-001', revisionId: revision.id, buildDate: '2026-11-16', note: 'First build, hand-assembled.' });
+  const board = await createBoard(dataSource, tester, { serialNumber: 'PM-2-001', revisionId: revision.id, buildDate: '2026-11-16', note: 'First build, hand-assembled.', confirmDraft: false });
   const channels = await dataSource.getRepository(Channel).find({ where: { revisionId: revision.id }, order: { position: 'ASC' } });
   for (const channel of channels) {
     const def = channel.definition;

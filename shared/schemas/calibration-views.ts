@@ -1,5 +1,6 @@
 import type { CalibrationPointBody, CalibrationState, CsvMapping, FitSettings, ReferenceSpec } from './calibration.js';
 import type { PersonRef } from './design-views.js';
+import type { RevisionState } from './designs.js';
 import type { RowProblem } from './common.js';
 import type { ReferenceTraceability } from './reference-traceability.js';
 import type { ReadingUncertainty } from '../fit/reading-uncertainty.js';
@@ -114,6 +115,10 @@ export interface BoardRow {
   designName: string;
   buildDate: string;
   note: string;
+  /** The revision's state when the board was recorded; null for boards recorded before it was kept. */
+  revisionStateAtBuild: RevisionState | null;
+  /** Built to a revision that was neither approved nor in review at the time (a draft, or one sent back). */
+  builtToDraft: boolean;
   createdAt: string;
   /** The newest session of each channel, by channel key. */
   latestByChannel: Record<string, SessionSummary>;

@@ -18,6 +18,8 @@ export const boardCreateSchema = z.strictObject({
   revisionId: z.number({ error: 'revisionId must be a number' }).int().positive({ error: 'revisionId must be positive' }),
   buildDate: isoDate('build date'),
   note: z.string().max(1000, { error: 'note must be at most 1000 characters' }).default(''),
+  /** Must be true to build a board to a revision that is neither approved nor in review (a draft, or one sent back). */
+  confirmDraft: z.boolean({ error: 'confirmDraft must be true or false' }).default(false),
 });
 export type BoardCreateBody = z.infer<typeof boardCreateSchema>;
 

@@ -1,11 +1,12 @@
 import { ref } from 'vue';
-import { designsApi, REVISION_STATE_LABELS } from '@/services/designs';
+import { designsApi, REVISION_STATE_LABELS, type RevisionState } from '@/services/designs';
 
 export interface RevisionChoice {
   value: number;
   label: string;
   designName: string;
   letter: string;
+  state: RevisionState;
 }
 
 /** Every design revision as a choice for a Select ("PM-2 pack monitor, revision A (Approved)"), newest design first. */
@@ -21,6 +22,7 @@ export function useRevisionChoices() {
       label: `${design.name}, revision ${r.letter} (${REVISION_STATE_LABELS[r.state] ?? r.state})`,
       designName: design.name,
       letter: r.letter,
+      state: r.state,
     })));
     loaded.value = true;
     return choices.value;

@@ -132,7 +132,7 @@ describe('who may approve a revision, and what an approval against failing check
     await study(designer, revisionId, 'uncertainty');
     await study(designer, revisionId, 'margin');
     // A built board far off the design: 5 Hz/V where the design gives tens of Hz/V, so it falls outside the design's spread.
-    const board = await tester.post('/api/boards').send({ serialNumber: 'OFF-001', revisionId, buildDate: '2026-11-18' });
+    const board = await tester.post('/api/boards').send({ serialNumber: 'OFF-001', revisionId, buildDate: '2026-11-18', confirmDraft: true });
     expect(board.status).toBe(201);
     const session = await tester.post(`/api/boards/${board.body.board.id}/sessions`).send({
       channelKey: 'pack', performedOn: '2026-11-20', ambientC: 23, reference: { description: 'bench meter', percentOfReading: 0.05, plusVolts: 0.1 },

@@ -49,7 +49,7 @@ describe('a margin study reads errors only from a board of its own design', () =
   it('refuses a board of this design without a completed calibration of each channel the study reads', async () => {
     const created = (await designer.post('/api/designs').send({ name: 'Half calibrated' })).body.design;
     const id = created.revisions[0].id;
-    const board = (await tester.post('/api/boards').send({ serialNumber: 'HALF-1', revisionId: id, buildDate: '2026-11-19' })).body.board;
+    const board = (await tester.post('/api/boards').send({ serialNumber: 'HALF-1', revisionId: id, buildDate: '2026-11-19', confirmDraft: true })).body.board;
     const bare = await saveInputs(id, { mode: 'board', boardId: board.id });
     expect(bare.status).toBe(400);
     expect(bare.body.error).toBe('board HALF-1 has no completed calibration of the pack and link channels');

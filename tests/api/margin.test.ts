@@ -231,7 +231,7 @@ describe('margin study with a built board\'s calibration', () => {
     await putMarginInputs(designer, id, { ...demoInputs, readingErrors: { mode: 'uncalibrated' }, faults: [] });
     const uncalibrated = (await runMargin(designer, id, { ...small, trials: 2000 })).result;
     expect(r.model.readingErrors.channels[0].gainSigmaFraction).toBeLessThan(uncalibrated.model.readingErrors.channels[0].gainSigmaFraction);
-    const bare = await tester.post('/api/boards').send({ serialNumber: 'BARE-1', revisionId: board.revisionId, buildDate: '2026-11-30' });
+    const bare = await tester.post('/api/boards').send({ serialNumber: 'BARE-1', revisionId: board.revisionId, buildDate: '2026-11-30', confirmDraft: true });
     const refused = await putMarginInputs(designer, id, { ...demoInputs, readingErrors: { mode: 'board', boardId: bare.body.board.id }, faults: [] });
     expect(refused.status).toBe(400);
     expect(refused.body.error).toBe('board BARE-1 has no completed calibration of the pack and link channels');

@@ -139,7 +139,7 @@ describe('two designers saving the same draft revision', () => {
 
   it('refuses an exclusion made on calibration points someone else changed, and keeps it to put back', async () => {
     const tester = await rig.app.signIn('tester@example.test', 'tallyvolt-tester');
-    const board = (await tester.post('/api/boards').send({ serialNumber: 'SHARED-1', revisionId: sharedRevisionId, buildDate: '2026-11-28' })).body.board;
+    const board = (await tester.post('/api/boards').send({ serialNumber: 'SHARED-1', revisionId: sharedRevisionId, buildDate: '2026-11-28', confirmDraft: true })).body.board;
     const session = (await tester.post(`/api/boards/${board.id}/sessions`).send({
       channelKey: 'pack', performedOn: '2026-11-29', ambientC: 23, reference: { description: 'bench HV meter, 1000 V range', percentOfReading: 0.05, plusVolts: 0.1 },
     })).body.session;

@@ -1,22 +1,32 @@
 import type { DataSource } from 'typeorm';
 import type { BoardCreateBody } from '../../../shared/schemas/calibration.js';
 import { recordAudit } from '../../common/audit.js';
-import { ConflictError, NotFoundError } from '../../common/errors.js';
+import { BadRequestError, ConflictError, NotFoundError } from '../../common/errors.js';
+import { REVISION_STATE_LABELS, type RevisionState } from '../../../shared/schemas/designs.js';
 import { Board } from '../../entities/Board.js';
 import { CalibrationSession } from '../../entities/CalibrationSession.js';
 import { Revision } from '../../entities/Revision.js';
 import type { User } from '../../entities/User.js';
 
+/** Revisions a board may be built to without saying so: approved, or in review (its design is settled for now). */
+export const BUILDABLE_STATES: readonly RevisionState[] = ['approved', 'in_review'];
+
 export async function createBoard(dataSource: DataSource, actor: User, body: BoardCreateBody): Promise<Board> {
   const id = await dataSource.transaction(async (m) => {
-    if (!(await m.getRepository(Revision).existsBy({ id: body.revisionId }))) {
-      throw new NotFoundError(`no revision with id ${body.revisionId}`);
+    const revision = await m.getRepository(Revision).findOneBy({ id: body.revisionId });
+    if (!revision) throw new NotFoundError(`no revision with id ${body.revisionId}`);
+    if (!BUILDABLE_STATES.includes(revision.state) && !body.confirmDraft) {
+      const state = REVISION_STATE_LABELS[revision.state].toLowerCase();
+      throw new BadRequestError(`revision ${revision.letter} is ${state}, not approved or in review; set confirmDraft to build a board to it anyway`,
+        { confirmDraft: `revision ${revision.letter} is ${state}: confirm that this board is built to a draft revision` });
     }
     if (await m.getRepository(Board).existsBy({ serialNumber: body.serialNumber })) {
       throw new ConflictError(`a board with serial number ${body.serialNumber} already exists`, { serialNumber: 'already exists' });
     }
-    const board = await m.getRepository(Board).save(m.getRepository(Board).create({ ...body, createdById: actor.id }));
-    await recordAudit(m, actor.id, 'board.create', `board:${board.id}`, { serialNumber: board.serialNumber, revisionId: body.revisionId });
+    const { confirmDraft: _confirmed, ...fields } = body;
+    const board = await m.getRepository(Board).save(m.getRepository(Board).create({ ...fields, revisionStateAtBuild: revision.state, createdById: actor.id }));
+    await recordAudit(m, actor.id, 'board.create', `board:${board.id}`,
+      { serialNumber: board.serialNumber, revisionId: body.revisionId, revisionState: revision.state });
     return board.id;
   });
   return getBoard(dataSource, id);

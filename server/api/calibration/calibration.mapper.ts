@@ -52,6 +52,8 @@ export function toBoardView(b: Board, sessions: CalibrationSession[]): BoardRow 
     designName: b.revision.design.name,
     buildDate: b.buildDate,
     note: b.note,
+    revisionStateAtBuild: b.revisionStateAtBuild,
+    builtToDraft: b.revisionStateAtBuild === 'draft' || b.revisionStateAtBuild === 'changes_requested',
     createdAt: isoTime(b.createdAt),
     latestByChannel: latest,
   };
