@@ -1,7 +1,7 @@
 import { http } from './http';
 import { queryString } from '@/utils/queryString';
 import type { StockPartBody } from '@shared/schemas/stock';
-import type { StockImportOutcome, StockPreview } from '@shared/schemas/stock-views';
+import type { StockDuplicateChoice, StockImportOutcome, StockPreview } from '@shared/schemas/stock-views';
 
 import { STOCK_PART_LIMIT } from '@shared/schemas/stock';
 
@@ -28,7 +28,7 @@ export interface StockListQuery {
 }
 
 export type { RowProblem } from '@shared/schemas/common';
-export type { StockImportOutcome as ImportOutcome, StockPreview as ImportPreview } from '@shared/schemas/stock-views';
+export type { StockImportOutcome as ImportOutcome, StockPreview as ImportPreview, StockDuplicateChoice } from '@shared/schemas/stock-views';
 
 export type ImportMode = 'preview' | 'all' | 'valid-only';
 
@@ -49,6 +49,6 @@ export const stockApi = {
   update: (id: number, patch: Partial<StockPartBody>) => http.patch<{ part: StockPart }>(path(id), patch).then((r) => r.part),
   remove: (id: number) => http.delete<void>(path(id)),
   preview: (file: File) => http.upload<StockPreview>('/api/stock/import?mode=preview', fileForm(file)),
-  import: (file: File, mode: Exclude<ImportMode, 'preview'>) =>
-    http.upload<StockImportOutcome>(`/api/stock/import?mode=${mode}`, fileForm(file)),
+  import: (file: File, mode: Exclude<ImportMode, 'preview'>, duplicates: StockDuplicateChoice = 'new-line') =>
+    http.upload<StockImportOutcome>(`/api/stock/import?mode=${mode}&duplicates=${duplicates}`, fileForm(file)),
 };
