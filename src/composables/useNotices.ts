@@ -1,14 +1,31 @@
-import type { ToastServiceMethods } from 'primevue/toastservice';
+import { reactive } from 'vue';
 
-// Bound once by the PrimeVue plugin, so route guards and the HTTP layer can raise toasts outside setup().
-let toastService: ToastServiceMethods | null = null;
+export type NoticeSeverity = 'success' | 'info' | 'warn' | 'error';
 
-export function bindToastService(service: ToastServiceMethods): void {
-  toastService = service;
+export interface Notice {
+  id: number;
+  severity: NoticeSeverity;
+  summary: string;
+  detail?: string;
 }
 
-function show(severity: 'success' | 'info' | 'warn' | 'error', summary: string, detail?: string, lifeMs?: number) {
-  toastService?.add({ severity, summary, detail, life: lifeMs });
+// Module state, so route guards and the HTTP layer can raise notices outside setup().
+// AppNotices shows them in a band of their own beneath the page, never over it.
+const notices = reactive<Notice[]>([]);
+let nextId = 1;
+// More than a few at once is noise; the oldest give way.
+const MAX_SHOWN = 3;
+
+function dismiss(id: number): void {
+  const at = notices.findIndex((n) => n.id === id);
+  if (at >= 0) notices.splice(at, 1);
+}
+
+function show(severity: NoticeSeverity, summary: string, detail?: string, lifeMs?: number): void {
+  const id = nextId++;
+  notices.push({ id, severity, summary, detail });
+  while (notices.length > MAX_SHOWN) notices.shift();
+  if (lifeMs) setTimeout(() => dismiss(id), lifeMs);
 }
 
 /** Errors stay until dismissed; confirmations fade. */
@@ -20,5 +37,5 @@ export const notify = {
 };
 
 export function useNotices() {
-  return notify;
+  return { ...notify, notices, dismiss };
 }

@@ -1,9 +1,7 @@
 import type { App, Plugin } from 'vue';
 import PrimeVue from 'primevue/config';
-import ToastService from 'primevue/toastservice';
 import ConfirmationService from 'primevue/confirmationservice';
 import { tallyvoltPreset } from '@/theme/preset';
-import { bindToastService } from '@/composables/useNotices';
 
 export const primeVue: Plugin = {
   install(app: App) {
@@ -19,8 +17,6 @@ export const primeVue: Plugin = {
       },
       ripple: false,
     });
-    app.use(ToastService);
     app.use(ConfirmationService);
-    bindToastService(app.config.globalProperties.$toast);
   },
 };

@@ -15,6 +15,11 @@ export function onSessionExpired(handler: () => void): void {
   expiryHandler = handler;
 }
 
+/** Stops a 401 from reporting an ended session, for a sign-out the person asked for. */
+export function silenceSessionExpiry(): void {
+  expiryReported = true;
+}
+
 /** Re-arms the expiry redirect after a successful sign-in. */
 export function resetSessionExpiry(): void {
   expiryReported = false;

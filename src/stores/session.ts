@@ -2,7 +2,7 @@ import { computed, ref } from 'vue';
 import { defineStore } from 'pinia';
 import { authApi, type SignInRequest } from '@/services/auth';
 import { isApiError } from '@/services/apiError';
-import { resetSessionExpiry } from '@/services/http';
+import { resetSessionExpiry, silenceSessionExpiry } from '@/services/http';
 import { ROLE_GROUPS, type RoleGroup } from '@shared/schemas/roles';
 import type { Role, User } from '@/services/users';
 
@@ -18,8 +18,8 @@ export const useSessionStore = defineStore('session', () => {
   function load(): Promise<void> {
     if (loaded.value) return Promise.resolve();
     pending ??= authApi
-      .me()
-      .then(adopt)
+      .session()
+      .then((found) => (found ? adopt(found) : forget()))
       .catch((error: unknown) => {
         user.value = null;
         // 401 simply means nobody is signed in; anything else is worth telling the person.
@@ -39,6 +39,9 @@ export const useSessionStore = defineStore('session', () => {
   }
 
   async function signOut(): Promise<void> {
+    // A deliberate sign-out is not an expired session: a request still in flight may get a 401, and that must
+    // not tell the person their session has ended. Signing in again re-arms the notice.
+    silenceSessionExpiry();
     try {
       await authApi.signOut();
     } finally {
