@@ -5,6 +5,7 @@ import { evaluationGrid } from './grid.js';
 import { boardInputs, readingInputs } from './inputs.js';
 import type { ChannelDefinition } from './types.js';
 import { assertChannel } from './validate.js';
+import { DEFAULT_GRID_POINTS } from '../schemas/study-defaults.js';
 
 /**
  * A channel reduced to typed arrays for the error model. Points are the evaluation grid
@@ -50,7 +51,7 @@ export interface CompiledChannel {
  * @throws Error naming the first bad input; also if period capture sees ≤ 0 Hz at the range minimum
  * @example const compiled = compileChannel(channel, 11)
  */
-export function compileChannel(channel: ChannelDefinition, gridPoints = 11): CompiledChannel {
+export function compileChannel(channel: ChannelDefinition, gridPoints = DEFAULT_GRID_POINTS): CompiledChannel {
   assertChannel(channel);
   const { divider, converter, capture, rangeV, reconstruction, environment } = channel;
   const gridV = evaluationGrid(rangeV, gridPoints);

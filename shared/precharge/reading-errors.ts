@@ -4,6 +4,7 @@ import { blockCountFor } from '../propagation/blocks.js';
 import { channelKernel } from '../propagation/channel-kernel.js';
 import { simulateBlocks } from '../propagation/simulate.js';
 import type { ReadingErrorModel } from './types.js';
+import { DEFAULT_GRID_POINTS } from '../schemas/study-defaults.js';
 
 /**
  * Reading-error samples of a channel for the margin study: for each simulated board, the
@@ -17,7 +18,7 @@ import type { ReadingErrorModel } from './types.js';
 export function readingErrorSamples(
   channel: ChannelDefinition, options: { seed: number; trials: number; gridPoints?: number },
 ): Extract<ReadingErrorModel, { kind: 'samples' }> {
-  const compiled = compileChannel(channel, options.gridPoints ?? 11);
+  const compiled = compileChannel(channel, options.gridPoints ?? DEFAULT_GRID_POINTS);
   const chunk = simulateBlocks(channelKernel(compiled), options.seed, options.trials, 0, blockCountFor(options.trials));
   const v = compiled.gridV;
   const n = v.length;

@@ -5,6 +5,7 @@ import { summariseChunks, type MonteCarloResult } from './monte-carlo.js';
 import { mergeChunks, outputValues, simulateBlocks } from './simulate.js';
 import { summariseValues } from './summary.js';
 import { numericalTolerance } from './tolerance.js';
+import { DEFAULT_COVERAGE_PROBABILITY } from '../schemas/study-defaults.js';
 
 /** Settings of an adaptive Monte Carlo run (JCGM 101:2008 7.9). */
 export interface AdaptiveOptions {
@@ -61,7 +62,7 @@ export class AdaptiveMonteCarlo {
    * @throws if p is outside (0, 1) or ndig is not an integer ≥ 1
    */
   constructor(private readonly options: AdaptiveOptions) {
-    this.coverageProbability = options.coverageProbability ?? 0.95;
+    this.coverageProbability = options.coverageProbability ?? DEFAULT_COVERAGE_PROBABILITY;
     this.ndig = options.ndig ?? 2;
     if (!(this.coverageProbability > 0 && this.coverageProbability < 1)) throw new Error('coverage probability must be in (0, 1)');
     if (!Number.isInteger(this.ndig) || this.ndig < 1) throw new Error('significant digits must be an integer ≥ 1');

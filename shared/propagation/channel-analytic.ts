@@ -5,6 +5,7 @@ import type { MeasurementFunction } from './functional-model.js';
 import { gumPropagation, type GumResult } from './gum.js';
 import type { UncertainInput } from './inputs.js';
 import { worstCase, type WorstCaseResult } from './worst-case.js';
+import { DEFAULT_COVERAGE_PROBABILITY } from '../schemas/study-defaults.js';
 
 /**
  * The channel's reading error at grid point g as a plain function of all its inputs (board
@@ -41,7 +42,7 @@ export interface ChannelGumPoint extends GumResult {
  * @throws if p is outside (0, 1)
  * @example channelGum(compiled)[10].budget[0].label
  */
-export function channelGum(c: CompiledChannel, coverageProbability = 0.95): ChannelGumPoint[] {
+export function channelGum(c: CompiledChannel, coverageProbability = DEFAULT_COVERAGE_PROBABILITY): ChannelGumPoint[] {
   return Array.from(c.gridV, (voltageV, g) => {
     const { inputs, model } = channelErrorFunction(c, g);
     const result = gumPropagation(inputs, model, coverageProbability);

@@ -10,6 +10,7 @@ import { blockCountFor } from './blocks.js';
 import { summariseChunks } from './monte-carlo.js';
 import { simulateBlocks } from './simulate.js';
 import type { OutputSummary } from './summary.js';
+import { DEFAULT_COVERAGE_PROBABILITY, DEFAULT_GRID_POINTS } from '../schemas/study-defaults.js';
 
 /** Settings of a channel uncertainty study. */
 export interface ChannelStudyOptions {
@@ -167,8 +168,8 @@ export function simulateChannelChunk(
  * @example channelStudy(channel, { seed: 7, trials: 50_000 }).gumAdequate
  */
 export function channelStudy(channel: ChannelDefinition, options: ChannelStudyOptions): ChannelStudy {
-  const compiled = compileChannel(channel, options.gridPoints ?? 11);
-  const p = options.coverageProbability ?? 0.95;
+  const compiled = compileChannel(channel, options.gridPoints ?? DEFAULT_GRID_POINTS);
+  const p = options.coverageProbability ?? DEFAULT_COVERAGE_PROBABILITY;
   const ndig = options.ndig ?? 2;
   const kernel = channelKernel(compiled);
   const adaptive = options.trials === undefined;

@@ -2,6 +2,7 @@ import { normalCoverageFactor } from './coverage-factor.js';
 import { inputStandardUncertainty, type UncertainInput } from './inputs.js';
 import type { MeasurementFunction } from './functional-model.js';
 import { crossTerms } from './gum-second-order.js';
+import { DEFAULT_COVERAGE_PROBABILITY } from '../schemas/study-defaults.js';
 
 /**
  * One row of an uncertainty budget: a first-order term of one input, or a second-order cross term
@@ -60,7 +61,7 @@ export interface GumResult {
  * @throws if there are no inputs, p is outside (0, 1) or f returns a non-finite value
  * @example gumPropagation(inputs, (x) => x[0] + x[1]).combinedStandardUncertainty
  */
-export function gumPropagation(inputs: readonly UncertainInput[], model: MeasurementFunction, coverageProbability = 0.95, secondOrder = true): GumResult {
+export function gumPropagation(inputs: readonly UncertainInput[], model: MeasurementFunction, coverageProbability = DEFAULT_COVERAGE_PROBABILITY, secondOrder = true): GumResult {
   if (inputs.length === 0) throw new Error('inputs must not be empty');
   const k = normalCoverageFactor(coverageProbability);
   const x = Float64Array.from(inputs, (i) => i.centre);

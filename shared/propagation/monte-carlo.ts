@@ -2,6 +2,7 @@ import { blockCountFor } from './blocks.js';
 import type { TrialChunk, TrialKernel } from './kernel.js';
 import { mergeChunks, outputValues, simulateBlocks } from './simulate.js';
 import { summariseValues, type OutputSummary } from './summary.js';
+import { DEFAULT_COVERAGE_PROBABILITY } from '../schemas/study-defaults.js';
 
 /** Settings of a fixed-size Monte Carlo run. */
 export interface MonteCarloOptions {
@@ -34,7 +35,7 @@ export interface MonteCarloResult {
 export function summariseChunks(
   chunks: readonly TrialChunk[],
   seed: number,
-  coverageProbability = 0.95,
+  coverageProbability = DEFAULT_COVERAGE_PROBABILITY,
   histogramBins = 40,
   consume = false,
 ): MonteCarloResult {
@@ -59,5 +60,5 @@ export function summariseChunks(
  */
 export function runMonteCarlo(kernel: TrialKernel, options: MonteCarloOptions): MonteCarloResult {
   const chunk = simulateBlocks(kernel, options.seed, options.trials, 0, blockCountFor(options.trials));
-  return summariseChunks([chunk], options.seed, options.coverageProbability ?? 0.95, options.histogramBins ?? 40, true);
+  return summariseChunks([chunk], options.seed, options.coverageProbability ?? DEFAULT_COVERAGE_PROBABILITY, options.histogramBins ?? 40, true);
 }

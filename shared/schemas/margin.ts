@@ -2,6 +2,7 @@ import { z } from 'zod';
 import type { CriterionOutcome } from '../precharge/resolution.js';
 import type { Histogram } from '../propagation/histogram.js';
 import { formatEng } from '../units/format-engineering.js';
+import { MARGIN_TRIAL_DEFAULTS, MAX_MARGIN_TRIALS, MIN_MARGIN_FAULT_TRIALS, MIN_TRIALS } from './study-defaults.js';
 
 const finite = (name: string) => z.number({ error: `${name} must be a number` }).refine(Number.isFinite, { error: `${name} must be finite` });
 const positive = (name: string, unit: string) => finite(name).refine((v) => v > 0, { error: `${name} must be > 0 ${unit}`.trim() });
@@ -82,20 +83,20 @@ export const marginInputsSchema = z.strictObject({
 export type MarginInputs = z.infer<typeof marginInputsSchema>;
 export type MarginInputsBody = z.input<typeof marginInputsSchema>;
 
-export const MAX_MARGIN_TRIALS = 1_000_000;
+export { MAX_MARGIN_TRIALS };
 
 export const marginStudyRequestSchema = z.strictObject({
   trials: z.number({ error: 'trials must be a number' }).int({ error: 'trials must be a whole number' })
-    .min(1000, { error: 'trials must be ≥ 1000' }).max(MAX_MARGIN_TRIALS, { error: `trials must be ≤ ${MAX_MARGIN_TRIALS}` }).default(100_000),
+    .min(MIN_TRIALS, { error: `trials must be ≥ ${MIN_TRIALS}` }).max(MAX_MARGIN_TRIALS, { error: `trials must be ≤ ${MAX_MARGIN_TRIALS}` }).default(MARGIN_TRIAL_DEFAULTS.trials),
   /** Trials per fault case. */
   faultTrials: z.number({ error: 'faultTrials must be a number' }).int({ error: 'faultTrials must be a whole number' })
-    .min(500, { error: 'faultTrials must be ≥ 500' }).max(MAX_MARGIN_TRIALS, { error: `faultTrials must be ≤ ${MAX_MARGIN_TRIALS}` }).default(10_000),
+    .min(MIN_MARGIN_FAULT_TRIALS, { error: `faultTrials must be ≥ ${MIN_MARGIN_FAULT_TRIALS}` }).max(MAX_MARGIN_TRIALS, { error: `faultTrials must be ≤ ${MAX_MARGIN_TRIALS}` }).default(MARGIN_TRIAL_DEFAULTS.faultTrials),
   /**
    * Simulated boards whose reading errors the study draws from, per channel. Trials share these
    * boards, so a probability can be shown no smaller than about 3 / min(boards, trials).
    */
   readingErrorTrials: z.number({ error: 'readingErrorTrials must be a number' }).int({ error: 'readingErrorTrials must be a whole number' })
-    .min(500, { error: 'readingErrorTrials must be ≥ 500' }).max(MAX_MARGIN_TRIALS, { error: `readingErrorTrials must be ≤ ${MAX_MARGIN_TRIALS}` }).default(20_000),
+    .min(MIN_MARGIN_FAULT_TRIALS, { error: `readingErrorTrials must be ≥ ${MIN_MARGIN_FAULT_TRIALS}` }).max(MAX_MARGIN_TRIALS, { error: `readingErrorTrials must be ≤ ${MAX_MARGIN_TRIALS}` }).default(MARGIN_TRIAL_DEFAULTS.readingErrorTrials),
   seed: z.number({ error: 'seed must be a number' }).int({ error: 'seed must be a whole number' })
     .min(0, { error: 'seed must be ≥ 0' }).max(2 ** 31 - 1, { error: 'seed must be < 2³¹' }).optional(),
 });

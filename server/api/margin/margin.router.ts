@@ -5,6 +5,7 @@ import { marginInputsSaveSchema } from '../../../shared/schemas/margin-inputs-sa
 import type { AppDeps } from '../../common/deps.js';
 import { defineRoute, type RouteSpec } from '../../common/routes.js';
 import { ROLE_GROUPS } from '../../../shared/schemas/roles.js';
+import { MARGIN_TRIAL_DEFAULTS } from '../../../shared/schemas/study-defaults.js';
 import { getRevision } from '../revisions/revisions.service.js';
 import { toRunView } from '../runs/runs.mapper.js';
 import { listRuns } from '../runs/runs.service.js';
@@ -37,7 +38,7 @@ export function marginRoutes({ dataSource, scheduler }: AppDeps): RouteSpec[] {
       },
     }),
     defineRoute({
-      method: 'post', path: '/:id/margin-studies', access: ROLE_GROUPS.marginRunners, params: idParamSchema, body: marginStudyRequestSchema.default({ trials: 100_000, faultTrials: 10_000, readingErrorTrials: 20_000 }),
+      method: 'post', path: '/:id/margin-studies', access: ROLE_GROUPS.marginRunners, params: idParamSchema, body: marginStudyRequestSchema.default(MARGIN_TRIAL_DEFAULTS),
       handler: async ({ params, body, user, res }) => {
         const run = await requestMarginStudy(dataSource, scheduler, user, params.id, body);
         res.status(202).json({ run: { ...toRunView(run, 0), inputs: undefined } });

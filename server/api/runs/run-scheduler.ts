@@ -9,7 +9,7 @@ import { firstNonFinite, nonFiniteReason } from './non-finite.js';
 import type { MarginStudyData } from '../margin/margin-study.js';
 import type { UncertaintyRunInputs } from '../../../shared/schemas/run-views.js';
 import { blockCountFor, planChunks } from '../../../shared/propagation/blocks.js';
-import { MAX_TRIALS } from '../../../shared/schemas/runs.js';
+import { DEFAULT_GRID_POINTS, MAX_TRIALS } from '../../../shared/schemas/study-defaults.js';
 import { assembleChannelStudy, type ChannelAnalytic, type ChannelStudy } from '../../../shared/propagation/channel-study.js';
 import type { OutputSummary } from '../../../shared/propagation/summary.js';
 
@@ -18,8 +18,8 @@ export const PER_USER_LIMIT = 2;
 /** Runs started at once; each spreads its channels and their blocks of trials over the pool's threads. */
 const CONCURRENT_RUNS = 2;
 const PROGRESS_WRITE_MS = 1000;
-/** Most bytes of trial values one study holds at once: 11 voltages of the largest run (2·10⁶ trials). */
-const VALUES_BUDGET_BYTES = 11 * MAX_TRIALS * 8;
+/** Most bytes of trial values one study holds at once: the default grid's voltages of the largest run. */
+const VALUES_BUDGET_BYTES = DEFAULT_GRID_POINTS * MAX_TRIALS * 8;
 
 
 interface ActiveRun {

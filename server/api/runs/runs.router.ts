@@ -4,13 +4,14 @@ import { uncertaintyStudyRequestSchema } from '../../../shared/schemas/runs.js';
 import type { AppDeps } from '../../common/deps.js';
 import { defineRoute, type RouteSpec } from '../../common/routes.js';
 import { ROLE_GROUPS } from '../../../shared/schemas/roles.js';
+import { DEFAULT_COVERAGE_PROBABILITY, DEFAULT_GRID_POINTS } from '../../../shared/schemas/study-defaults.js';
 import { getRevision } from '../revisions/revisions.service.js';
 import { currentRunHash } from '../margin/margin.service.js';
 import { toRunView } from './runs.mapper.js';
 import type { RunScheduler } from './run-scheduler.js';
 import { cancelRun, channelsHash, getRun, listRuns, requestUncertaintyStudy } from './runs.service.js';
 
-const studyBody = uncertaintyStudyRequestSchema.default({ coverageProbability: 0.95, gridPoints: 11 });
+const studyBody = uncertaintyStudyRequestSchema.default({ coverageProbability: DEFAULT_COVERAGE_PROBABILITY, gridPoints: DEFAULT_GRID_POINTS });
 const noQuery = z.strictObject({});
 
 /** Studies of a revision (under /api/revisions) and runs by id (under /api/runs). */
