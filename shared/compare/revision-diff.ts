@@ -49,8 +49,10 @@ export function diffRevisions(before: RevisionSide, after: RevisionSide): Revisi
   const studied = [...(after.studies.uncertainty?.channels ?? []), ...(before.studies.uncertainty?.channels ?? [])];
   const channelKeys = [...new Map(studied.map((c) => [c.key, c.name])).entries()];
   rows.push(...compare('Uncertainty study', channelKeys.flatMap(([key, name]) => uncertaintyHeadlineFields(key, name)), before.studies, after.studies));
-  const criteria = [...new Map([...(after.studies.margin?.criteria ?? []), ...(before.studies.margin?.criteria ?? [])].map((c) => [c.key, c])).values()];
-  const faults = [...new Map([...(after.studies.margin?.faults ?? []), ...(before.studies.margin?.faults ?? [])].map((f) => [f.key, f])).values()];
+  // With a margin study on one side only, its verdict says so; listing every criterion against nothing says no more.
+  const both = before.studies.margin !== null && after.studies.margin !== null;
+  const criteria = both ? [...new Map([...after.studies.margin!.criteria, ...before.studies.margin!.criteria].map((c) => [c.key, c])).values()] : [];
+  const faults = both ? [...new Map([...after.studies.margin!.faults, ...before.studies.margin!.faults].map((f) => [f.key, f])).values()] : [];
   rows.push(...compare('Margin study', marginHeadlineFields({ criteria, faults }), before.studies, after.studies));
   return rows;
 }

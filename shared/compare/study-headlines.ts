@@ -45,7 +45,7 @@ export function uncertaintyHeadlineFields(key: string, name: string): CompareFie
 export function marginHeadlineFields(keys: { criteria: { key: string; criterion: string }[]; faults: { key: string; label: string }[] }): CompareField<StudyHeadlines>[] {
   const m = (read: (r: Margin) => string | undefined) => (h: StudyHeadlines) => (h.margin ? read(h.margin) : undefined);
   return [
-    { label: 'Margin verdict', unit: '', read: m((r) => VERDICTS[r.verdict] ?? r.verdict) },
+    { label: 'Margin verdict', unit: '', read: (h: StudyHeadlines) => (h.margin ? VERDICTS[h.margin.verdict] ?? h.margin.verdict : 'no finished study') },
     ...keys.criteria.map(({ key, criterion }) => ({
       label: criterion, unit: '',
       read: m((r) => {

@@ -1,5 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import path from 'node:path';
 import { openBrowserRig, type BrowserRig } from '../helpers/browser.js';
+import { ARTIFACTS_DIR } from '../helpers/built-client.js';
 import { putChannels, putMarginInputs } from '../helpers/saves.js';
 
 describe('revision comparison and isolation rating in the browser', () => {
@@ -39,6 +41,8 @@ describe('revision comparison and isolation rating in the browser', () => {
     expect(await previous.getByRole('row', { name: /Isolation margin/ }).innerText()).toMatch(/—\s+25 %\s+▲ changed/);
     expect(await changes.getByRole('table', { name: /Against revision A/ }).isVisible()).toBe(true);
 
+    await changes.screenshot({ path: path.join(ARTIFACTS_DIR, 'review-revision-compare.png') });
+
     // Unchanged values are one click away.
     const before = await previous.getByRole('row').count();
     await changes.getByLabel('Show unchanged values too').check();
@@ -48,7 +52,6 @@ describe('revision comparison and isolation rating in the browser', () => {
     // Range maximum 500 V × 1.25 = 625 V against a 400 V rating (hand arithmetic in this test).
     const warnings = page.getByRole('region', { name: 'Design warnings' });
     expect(await warnings.innerText()).toContain('625 V, exceeds the isolator\'s rated working voltage 400 V');
-    await rig.screenshot('review-revision-compare');
   });
 
   it('prints the changed values in the report', async () => {
