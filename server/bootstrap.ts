@@ -2,6 +2,8 @@ import type { DataSource } from 'typeorm';
 import { createApp, type BuiltApp } from './app.js';
 import { databaseTarget, type AppConfig } from './config.js';
 import { createDataSource } from './common/data-source.js';
+import { withRateLimitStore } from './common/rate-limits.js';
+import { rateLimitStoreFor } from './common/rate-limit-store.js';
 import { createMailer, startMailFake, type MailFake, type Mailer } from './common/mail.js';
 import { seedDemoIfEmpty, type DemoSeed } from './seed/demo.js';
 import { RunScheduler } from './api/runs/run-scheduler.js';
@@ -33,7 +35,8 @@ export async function bootstrap(config: AppConfig, options: { seed: DemoSeed | f
   const pool = createStudyPool(config.studyThreads);
   const scheduler = new RunScheduler(dataSource, pool);
   await scheduler.recover();
-  const built = createApp({ dataSource, mailer, config, scheduler });
+  const sharedLimits = await rateLimitStoreFor(config.databaseUrl);
+  const built = withRateLimitStore(sharedLimits?.storeFor ?? null, () => createApp({ dataSource, mailer, config, scheduler }));
   return {
     ...built,
     dataSource,
@@ -46,6 +49,7 @@ export async function bootstrap(config: AppConfig, options: { seed: DemoSeed | f
       await pool.close();
       await mailer.close();
       await mailFake?.close();
+      await sharedLimits?.close();
       await dataSource.destroy();
     },
   };

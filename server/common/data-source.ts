@@ -36,6 +36,8 @@ export function createDataSource(target: string, busyTimeoutMs = 5000): DataSour
       url: target,
       entities,
       migrations,
+      // `migrations` is the rate-limit store's own record table (server/common/rate-limit-store.ts)
+      migrationsTableName: 'schema_migrations',
       migrationsRun: false,
       synchronize: false,
       logging: ['error'],
