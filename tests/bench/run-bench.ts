@@ -3,6 +3,7 @@
 // (one simulated reading at one evaluation voltage) per second, and end-to-end study time through the running server,
 // which runs the same code (the bundled study worker) as `npm start`. Each target is printed beside its figure with
 // whether it holds; nothing here is asserted in a test.
+import { fixtureSeries } from '../helpers/stored-series.js';
 import { compileChannel } from '../../shared/chain/index.js';
 import { blockCountFor, channelAnalytic, channelKernel, simulateBlocks } from '../../shared/propagation/index.js';
 import { summariseValues } from '../../shared/propagation/summary.js';
@@ -97,17 +98,17 @@ async function benchFinder(): Promise<void> {
     const finder = (await import('../../shared/finder/index.js')) as { findDividers?: (request: object) => { candidates: unknown[]; notSearched: string[] } };
     if (typeof finder.findDividers !== 'function') throw new Error('findDividers is not exported');
     for (const request of [
-      { maxInputVolts: 462, fullScaleVolts: 1.85, series: 'E192', minTopCount: 1, maxTopCount: 4 },
-      { maxInputVolts: 462, fullScaleVolts: 1.85, series: 'E192', minTopCount: 1, maxTopCount: 4, mixedTopStrings: true },
-      { maxInputVolts: 462, fullScaleVolts: 1.85, series: 'E96', minTopCount: 4, maxTopCount: 4 },
-      { maxInputVolts: 462, fullScaleVolts: 1.85, series: 'E24', minTopCount: 1, maxTopCount: 8, mixedTopStrings: true },
-      { maxInputVolts: 462, targetRatio: 0.016, series: 'E96', minTopCount: 3, maxTopCount: 3, mixedTopStrings: true, inputResistanceOhms: 10e6, inputBiasAmps: 1e-9 },
+      { maxInputVolts: 462, fullScaleVolts: 1.85, series: fixtureSeries('E192'), minTopCount: 1, maxTopCount: 4 },
+      { maxInputVolts: 462, fullScaleVolts: 1.85, series: fixtureSeries('E192'), minTopCount: 1, maxTopCount: 4, mixedTopStrings: true },
+      { maxInputVolts: 462, fullScaleVolts: 1.85, series: fixtureSeries('E96'), minTopCount: 4, maxTopCount: 4 },
+      { maxInputVolts: 462, fullScaleVolts: 1.85, series: fixtureSeries('E24'), minTopCount: 1, maxTopCount: 8, mixedTopStrings: true },
+      { maxInputVolts: 462, targetRatio: 0.016, series: fixtureSeries('E96'), minTopCount: 3, maxTopCount: 3, mixedTopStrings: true, inputResistanceOhms: 10e6, inputBiasAmps: 1e-9 },
     ]) {
       finder.findDividers(request);
       const start = performance.now();
       const found = finder.findDividers(request);
       const skipped = found.notSearched.length ? `, ${found.notSearched.length} kinds of string not searched` : '';
-      console.log(`divider finder ${JSON.stringify(request)}: ${(seconds(start) * 1000).toFixed(1)} ms, ${found.candidates.length} candidates${skipped}`);
+      console.log(`divider finder ${JSON.stringify({ ...request, series: request.series.name })}: ${(seconds(start) * 1000).toFixed(1)} ms, ${found.candidates.length} candidates${skipped}`);
     }
   } catch (error) {
     console.log(`divider finder not timed: ${(error as Error).message}`);
