@@ -2,6 +2,7 @@ import {
   BarElement, CategoryScale, Chart, Filler, Legend, LinearScale, LineElement, PointElement, Title, Tooltip,
   type Plugin,
 } from 'chart.js';
+import { niceScale } from '@shared/plot/nice-scale';
 
 /** Paints a white ground under the chart, so a downloaded PNG is not transparent. */
 const whiteGround: Plugin = {
@@ -46,4 +47,20 @@ export function downloadChart(chart: Chart | undefined | null, fileName: string)
   link.href = chart.toBase64Image('image/png', 1);
   link.download = fileName;
   link.click();
+}
+
+/**
+ * A linear axis on round ticks (1, 2 or 5 × 10^k) covering [low, high]. `padFraction` widens the range first,
+ * so a marker drawn at the extreme value sits inside the plot rather than on its edge.
+ */
+export function roundAxis(low: number, high: number, ticks = 8, padFraction = 0) {
+  const pad = (high - low) * padFraction;
+  const { min, max, stepSize } = niceScale(low - pad, high + pad, ticks);
+  return { type: 'linear' as const, min, max, ticks: { stepSize } };
+}
+
+/** A count axis from zero to a round top above `top` (whole numbers only). */
+export function countAxis(top: number, ticks = 5) {
+  const { max, stepSize } = niceScale(0, Math.max(1, top), ticks);
+  return { beginAtZero: true, min: 0, max, ticks: { stepSize: Math.max(1, stepSize), precision: 0 } };
 }
