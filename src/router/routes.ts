@@ -1,7 +1,8 @@
-import type { RouteRecordRaw } from 'vue-router';
+import type { RouteParamsGeneric, RouteParamsRawGeneric, RouteRecordInfo } from 'vue-router';
 import SignInPage from '@/pages/SignInPage.vue';
 
-export const routes: RouteRecordRaw[] = [
+// Typed by inference (the router checks them as route records) so the names below come from this one list.
+export const routes = [
   {
     path: '/sign-in',
     name: 'sign-in',
@@ -138,4 +139,13 @@ export const routes: RouteRecordRaw[] = [
     component: () => import('@/pages/NotFoundPage.vue'),
     meta: { title: 'Not found', public: true },
   },
-];
+] as const;
+
+/** Every route's name; a push or link to a name not in this list fails the type check. */
+export type RouteName = (typeof routes)[number]['name'];
+
+declare module 'vue-router' {
+  interface TypesConfig {
+    RouteNamedMap: { [N in RouteName]: RouteRecordInfo<N, string, RouteParamsRawGeneric, RouteParamsGeneric> };
+  }
+}
