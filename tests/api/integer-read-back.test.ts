@@ -4,6 +4,8 @@ import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createTestApp, type TestApp } from '../helpers/test-app.js';
 import { cHeader, jsonExport, type ExportContext } from '../../server/api/calibration/firmware-export.js';
+import { canonicalJson, sha256Hex } from '../../server/api/calibration/canonical-json.js';
+import { CalibrationRecord } from '../../server/entities/CalibrationRecord.js';
 import { countReadingMv, type CountReadingForm } from '../../shared/fit/count-reading.js';
 import type { FixedPointForm } from '../../shared/fit/fixed-point.js';
 import type { CaptureDefinition } from '../../shared/schemas/chain.js';
@@ -138,5 +140,25 @@ describe('integer read-back from raw counts', () => {
       expect(c.count.maxErrorMv).toBeGreaterThanOrEqual(0.5);
       expect(c.count.maxErrorMv).toBeLessThan(0.6);
     }
+  });
+
+  it('gives a record frozen before count readings existed its constants from the revision, and says so', async () => {
+    const id = await completed(1, 1e5);
+    const repo = t.dataSource.getRepository(CalibrationRecord);
+    const row = await repo.findOneByOrFail({ sessionId: id, sequence: 1 });
+    const frozen = (await tester.get(`/api/calibrations/${id}/export.json`)).body.reading.countReading;
+    // the record as an older server wrote it: no count reading, its hash made over that text
+    const payload = JSON.parse(row.payload);
+    delete payload.reading.countReading;
+    delete payload.reading.countNotExportable;
+    const text = canonicalJson(payload);
+    await repo.update({ id: row.id }, { payload: text, sha256: sha256Hex(text) });
+    const json = (await tester.get(`/api/calibrations/${id}/export.json`)).body;
+    const header = (await tester.get(`/api/calibrations/${id}/export.h`)).text;
+    expect(json.reading.countReading.frozen).toBe(false);
+    // the same capture and fit give the same constants and bound as the frozen ones (deterministic, in this test)
+    expect({ ...json.reading.countReading, frozen: true }).toEqual(frozen);
+    expect(header).toContain('computed at export from the revision\'s capture settings: this record predates them');
+    expect(header).toContain('_millivolts_from_counts(uint64_t counts)');
   });
 });
