@@ -54,6 +54,23 @@ describe('revision comparison and isolation rating in the browser', () => {
     expect(await warnings.innerText()).toContain('625 V, exceeds the isolator\'s rated working voltage 400 V');
   });
 
+  it('gives the designer the isolation rating fields in the editor, warned at the range maximum', async () => {
+    const { page } = rig;
+    await page.getByRole('button', { name: 'Sign out' }).click();
+    await page.waitForURL(/\/sign-in/);
+    await page.getByLabel('E-mail').fill('designer@example.test');
+    await page.getByLabel('Password').fill('tallyvolt-designer');
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await page.waitForURL((url) => url.pathname === '/');
+    await page.goto(`${rig.baseUrl}/revisions/${revisionId}`);
+    const rated = page.getByLabel(/^Rated working voltage/).first();
+    await rated.waitFor();
+    expect(await rated.inputValue()).toBe('400');
+    await expect.poll(() => page.getByLabel(/^Standard or rules followed/).count()).toBeGreaterThan(0);
+    // The editor checks without the margin: 500 V > 400 V (hand arithmetic in this test).
+    expect(await page.locator('main').innerText()).toMatch(/the range maximum 500 V exceeds the isolator's rated working voltage 400 V/i);
+  });
+
   it('prints the changed values in the report', async () => {
     const { page } = rig;
     await page.goto(`${rig.baseUrl}/revisions/${revisionId}/report`);
