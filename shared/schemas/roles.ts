@@ -14,7 +14,7 @@ export const ROLE_GROUPS = {
   everyone: ROLES,
   /** Create and edit designs and revisions, start uncertainty studies, submit or reopen a revision. */
   designWriters: ['designer', 'admin'],
-  /** Add, change, delete and import stock parts. */
+  /** Add, change, delete and import stock parts and the team's own preferred-value series. */
   stockKeepers: ['designer', 'admin'],
   /** Start (and, when they started it, cancel) a margin study; leads check margins before deciding. */
   marginRunners: ['designer', 'lead', 'admin'],

@@ -2,6 +2,7 @@ import { z } from 'zod';
 import type { AppDeps } from '../../common/deps.js';
 import { readCsv } from '../../common/csv.js';
 import { defineRoute, type RouteSpec } from '../../common/routes.js';
+import { ROLE_GROUPS } from '../../../shared/schemas/roles.js';
 import { csvUpload } from '../../common/upload.js';
 import { seriesCreateSchema, seriesImportQuerySchema, seriesNameParamsSchema, seriesValuesSchema } from '../../../shared/schemas/series.js';
 import type { ResistorSeries as SeriesView, SeriesImportOutcome } from '../../../shared/schemas/series-views.js';
@@ -9,7 +10,6 @@ import type { ResistorSeries } from '../../entities/ResistorSeries.js';
 import { previewSeriesCsv } from './series.csv.js';
 import { createSeries, deleteSeries, getSeries, importSeries, listSeries, replaceSeriesValues } from './series.service.js';
 
-const WRITERS = ['designer', 'admin'] as const;
 const valuesBody = z.strictObject({ values: seriesValuesSchema });
 
 const toSeriesView = (s: ResistorSeries): SeriesView => ({ name: s.name, valuesPerDecade: s.valuesPerDecade, values: s.values, standard: s.standard });
@@ -21,11 +21,11 @@ export function seriesRoutes({ dataSource }: AppDeps): RouteSpec[] {
       handler: async ({ res }) => { res.json({ items: (await listSeries(dataSource)).map(toSeriesView) }); },
     }),
     defineRoute({
-      method: 'post', path: '', access: WRITERS, body: seriesCreateSchema,
+      method: 'post', path: '', access: ROLE_GROUPS.stockKeepers, body: seriesCreateSchema,
       handler: async ({ body, user, res }) => { res.status(201).json({ series: toSeriesView(await createSeries(dataSource, user!, body)) }); },
     }),
     defineRoute({
-      method: 'post', path: '/import', access: WRITERS, query: seriesImportQuerySchema, before: [csvUpload],
+      method: 'post', path: '/import', access: ROLE_GROUPS.stockKeepers, query: seriesImportQuerySchema, before: [csvUpload],
       handler: async ({ query, user, req, res }) => {
         const preview = previewSeriesCsv(query.name, readCsv(req.file!.buffer));
         if (query.mode === 'preview') {
@@ -42,11 +42,11 @@ export function seriesRoutes({ dataSource }: AppDeps): RouteSpec[] {
       handler: async ({ params, res }) => { res.json({ series: toSeriesView(await getSeries(dataSource, params.name)) }); },
     }),
     defineRoute({
-      method: 'put', path: '/:name', access: WRITERS, params: seriesNameParamsSchema, body: valuesBody,
+      method: 'put', path: '/:name', access: ROLE_GROUPS.stockKeepers, params: seriesNameParamsSchema, body: valuesBody,
       handler: async ({ params, body, user, res }) => { res.json({ series: toSeriesView(await replaceSeriesValues(dataSource, user!, params.name, body.values)) }); },
     }),
     defineRoute({
-      method: 'delete', path: '/:name', access: WRITERS, params: seriesNameParamsSchema,
+      method: 'delete', path: '/:name', access: ROLE_GROUPS.stockKeepers, params: seriesNameParamsSchema,
       handler: async ({ params, user, res }) => { await deleteSeries(dataSource, user!, params.name); res.status(204).end(); },
     }),
   ];
