@@ -182,7 +182,7 @@ describe('who may approve a revision, and what an approval against failing check
     const signed = report.signOff.at(-1);
     expect(signed.label).toBe('Approved with an override');
     expect(signed.override).toEqual({ justification, failing: check.failing });
-    const pdf = await lead.get(`/api/revisions/${revisionId}/report.pdf`).buffer(true).parse(binary);
+    const pdf = await lead.get(`/api/revisions/${revisionId}/report.pdf`).buffer(true).parse(binary as never);
     expect(pdf.status).toBe(200);
     const text = await pdfText(pdf.body as Buffer);
     expect(text).toContain('Override: approved by');

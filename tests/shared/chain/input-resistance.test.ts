@@ -59,8 +59,9 @@ describe('the converter input resistance spread', () => {
     expect(top.monteCarlo.standardDeviation / top.gum.combinedStandardUncertainty).toBeCloseTo(1, 1);
     expect(top.gum.combinedStandardUncertainty).toBeGreaterThan(5); // arithmetic, in the test: ≈ 133 V per unit δ × 0.058
     const boards = readingErrorSamples(defined, { seed: 2, trials: 4000, gridPoints: 3 });
-    const mean = boards.gainErrorFraction.reduce((a, b) => a + b, 0) / boards.gainErrorFraction.length;
-    const sd = Math.sqrt(boards.gainErrorFraction.reduce((a, b) => a + (b - mean) ** 2, 0) / (boards.gainErrorFraction.length - 1));
+    const gains = Array.from(boards.gainErrorFraction);
+    const mean = gains.reduce((a, b) => a + b, 0) / gains.length;
+    const sd = Math.sqrt(gains.reduce((a, b) => a + (b - mean) ** 2, 0) / (gains.length - 1));
     // arithmetic, in the test: gain error r/r₀ − 1 is e/V, so its spread is the GUM's at 400 V divided by 400 V
     expect(sd / (top.gum.combinedStandardUncertainty / V)).toBeCloseTo(1, 1);
   });

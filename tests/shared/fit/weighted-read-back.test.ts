@@ -1,4 +1,4 @@
-import { all, create } from 'mathjs';
+import { all, create, type BigNumber } from 'mathjs';
 import { describe, expect, it } from 'vitest';
 import {
   fitPolynomial, interpolatedUncertainty, predictInterval, predictValue, readingUncertainty, referenceShare,
@@ -6,8 +6,8 @@ import {
 import { studentTQuantile } from '../../../shared/stats/index.js';
 
 const big = create(all, { number: 'BigNumber', precision: 60 });
-type Big = ReturnType<typeof big.bignumber>;
-const B = (v: number): Big => big.bignumber(v);
+type Big = BigNumber;
+const B = (v: number): Big => big.bignumber(v) as Big;
 const sum = (values: Big[]): Big => values.reduce((a, b) => big.add(a, b) as Big, B(0));
 
 /** An invented bench calibration whose frequency scatter grows with frequency (u ≈ 2·10⁻⁵·f). */
@@ -42,7 +42,7 @@ function referenceLine() {
   return { b0, b1, chiSquared, meanVariance, varB0: big.divide(Sxx, delta) as Big, varB1: big.divide(S, delta) as Big };
 }
 
-const relativeError = (value: number, expected: Big) => Math.abs(value / big.number(expected) - 1);
+const relativeError = (value: number, expected: Big) => Math.abs(value / (big.number(expected) as number) - 1);
 
 describe('a weighted calibration read back', () => {
   const exact = referenceLine();
@@ -76,7 +76,7 @@ describe('a weighted calibration read back', () => {
       rows.forEach((row, i) => {
         const u0 = newReadingAt(at[i]);
         // u(V) = √((mean variance + u(f)²)·scale)/|b₁|: first-order inverse regression (NIST/SEMATECH e-Handbook §2.3.6.7.1), 60-digit sums
-        const expected = big.divide(big.sqrt(big.multiply(big.add(exact.meanVariance(at[i]), B(u0 * u0)), scale)), big.abs(exact.b1)) as Big;
+        const expected = big.divide(big.sqrt(big.multiply(big.add(exact.meanVariance(at[i]), B(u0 * u0)), scale) as Big), big.abs(exact.b1)) as Big;
         expect(relativeError(row.fitV, expected)).toBeLessThan(1e-9);
         expect(row.newReadingHz).toBe(u0);
       });
