@@ -1,6 +1,6 @@
 import { TableColumn, type MigrationInterface, type QueryRunner } from 'typeorm';
 import { E_SERIES_MANTISSAS } from './e-series-seed.js';
-import { booleanDefault } from './portable.js';
+import { booleanDefault, changeVarcharLength } from './portable.js';
 
 /**
  * A team's own named series beside the IEC 60063 ones: longer names, and a flag that keeps the standard rows
@@ -12,7 +12,7 @@ export class OwnSeries1796271300000 implements MigrationInterface {
   name = 'OwnSeries1796271300000';
 
   async up(q: QueryRunner): Promise<void> {
-    await q.changeColumn('resistor_series', 'name', new TableColumn({ name: 'name', type: 'varchar', length: '40', isPrimary: true }));
+    await changeVarcharLength(q, 'resistor_series', { name: 'name', type: 'varchar', length: '40', isPrimary: true });
     await q.addColumn('resistor_series', new TableColumn({ name: 'standard', type: 'boolean', default: booleanDefault(q, false) }));
     for (const [name, values] of Object.entries(E_SERIES_MANTISSAS)) {
       const row = { valuesPerDecade: values.length, values: [...values], standard: true }; // the entity's simple-json column writes the list
@@ -24,6 +24,6 @@ export class OwnSeries1796271300000 implements MigrationInterface {
   async down(q: QueryRunner): Promise<void> {
     await q.manager.createQueryBuilder().delete().from('resistor_series').where('standard = :no', { no: false }).execute();
     await q.dropColumn('resistor_series', 'standard');
-    await q.changeColumn('resistor_series', 'name', new TableColumn({ name: 'name', type: 'varchar', length: '8', isPrimary: true }));
+    await changeVarcharLength(q, 'resistor_series', { name: 'name', type: 'varchar', length: '8', isPrimary: true });
   }
 }
