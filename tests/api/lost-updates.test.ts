@@ -137,7 +137,7 @@ describe('saves based on an older version are refused', () => {
   it('refuses a calibration-points save from an older version, and an exclusion made from one', async () => {
     const designs = (await tester.get('/api/designs')).body.items;
     const design = (await tester.get(`/api/designs/${designs[0].id}`)).body.design;
-    const board = await tester.post('/api/boards').send({ serialNumber: 'LOST-UPDATE-1', revisionId: design.revisions[0].id, buildDate: '2026-11-18' });
+    const board = await tester.post('/api/boards').send({ serialNumber: 'LOST-UPDATE-1', revisionId: design.revisions[0].id, buildDate: '2026-11-18', confirmDraft: true });
     expect(board.status).toBe(201);
     const created = await tester.post(`/api/boards/${board.body.board.id}/sessions`).send(SESSION);
     expect(created.status).toBe(201);
