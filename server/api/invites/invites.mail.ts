@@ -8,12 +8,15 @@ const ROLE_WORK: Record<Role, string> = {
   lead: 'review margin studies and sign revisions off',
 };
 
+/** The role with its article, so an admin is invited "as an admin" (English article before a vowel sound). */
+const withArticle = (role: Role): string => `${/^[aeiou]/.test(role) ? 'an' : 'a'} ${role}`;
+
 const escapeHtml = (s: string) => s.replace(/[&<>"']/g, (c) => `&#${c.charCodeAt(0)};`);
 
 export function inviteMessage(to: string, role: Role, link: string, invitedBy: string, expiresAt: Date): MailMessage {
   const expires = expiresAt.toISOString().replace('T', ' ').slice(0, 16) + ' UTC';
   const text = [
-    `${invitedBy} has invited you to Tallyvolt as a ${role}, to ${ROLE_WORK[role]}.`,
+    `${invitedBy} has invited you to Tallyvolt as ${withArticle(role)}, to ${ROLE_WORK[role]}.`,
     '',
     `Set your name and password here (the link works once, until ${expires}):`,
     link,
@@ -21,7 +24,7 @@ export function inviteMessage(to: string, role: Role, link: string, invitedBy: s
     'If you did not expect this, ignore this message.',
   ].join('\n');
   const html =
-    `<p>${escapeHtml(invitedBy)} has invited you to Tallyvolt as a <strong>${role}</strong>, to ${ROLE_WORK[role]}.</p>` +
+    `<p>${escapeHtml(invitedBy)} has invited you to Tallyvolt as ${withArticle(role).split(' ')[0]} <strong>${role}</strong>, to ${ROLE_WORK[role]}.</p>` +
     `<p><a href="${escapeHtml(link)}">Set your name and password</a> (the link works once, until ${expires}).</p>` +
     `<p>If you did not expect this, ignore this message.</p>`;
   return { to, subject: 'Your Tallyvolt invitation', text, html };
